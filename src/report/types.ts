@@ -1,0 +1,110 @@
+import type { FhaResult } from '../fha/types.js';
+import type { SimMetrics } from '../measure/types.js';
+import type { Corner } from '../corners/types.js';
+
+export type CornerStatus = 'predicted' | 'unreachable' | 'ok' | 'diverged' | 'failed' | 'not-settled';
+
+/** Simulation outcome of one corner: the measured metrics plus how they were obtained. */
+export interface SimSummary extends SimMetrics {
+  /** Switching cycles simulated for this corner, all runs together. */
+  cycles: number;
+  /** Simulator runs for this corner (settling continuations and frequency search included). */
+  runs: number;
+  /** Operating points simulated (1 for fixed frequency; search steps when regulating). */
+  simulations: number;
+  settled: boolean;
+  /** Relative difference of the last two output-voltage windows. */
+  settleError: number;
+  fromCache: boolean;
+}
+
+/** One metric compared between FHA and simulation. */
+export interface ComparisonRow {
+  metric: string;
+  fha: number | string | boolean | null;
+  sim: number | string | boolean | null;
+  /** (sim - fha) / |fha| for numbers; null for status metrics. */
+  error: number | null;
+  tolerance: number | null;
+  verdict: 'ok' | 'diverged' | 'info';
+  reason?: string;
+  /** True when the error has the sign FHA theory rules out: suspect the model, not FHA. */
+  unexpectedSign?: boolean;
+}
+
+export interface Divergence {
+  metric: string;
+  fha: number | string | boolean | null;
+  sim: number | string | boolean | null;
+  error: number | null;
+  tolerance: number | null;
+  reason: string;
+  unexpectedSign?: boolean;
+}
+
+export interface CornerResult {
+  id: string;
+  inputs: {
+    vin: number;
+    load: number;
+    loadLabel: string;
+    iout: number;
+    pout: number;
+    fs: number | null;
+    lr: number;
+    cr: number;
+    lm: number;
+    turnsRatio: number;
+    tolerance: Corner['tolerance'];
+  };
+  fha: FhaResult;
+  sim: SimSummary | null;
+  comparison: ComparisonRow[];
+  divergences: Divergence[];
+  status: CornerStatus;
+  failure?: { kind: string; message: string; detail?: string };
+}
+
+/** Downsampled waveforms of one corner's measurement window, kept for the report. */
+export interface WaveformExcerpt {
+  id: string;
+  fs: number;
+  t: number[];
+  series: Record<string, number[]>;
+  /** Gate turn-on edges of the high side (HB) / S1-S4 pair (FB), s. */
+  edges: number[];
+}
+
+export interface ResultsSummary {
+  corners: number;
+  ok: number;
+  diverged: number;
+  failed: number;
+  notSettled: number;
+  predicted: number;
+  unreachable: number;
+  simulations: number;
+  cacheHits: number;
+  /** Worst divergences, largest |error| / tolerance first. */
+  worst: { id: string; metric: string; error: number | null; tolerance: number | null }[];
+}
+
+export interface Results {
+  schema: 'tankcheck/results@1';
+  tool: { name: 'tankcheck'; version: string };
+  design: { name: string; file: string | null };
+  engine: { name: string; version: string } | null;
+  incomplete?: boolean;
+  corners: CornerResult[];
+  summary: ResultsSummary;
+  baseline?: BaselineReport;
+}
+
+export interface BaselineReport {
+  file: string;
+  added: string[];
+  removed: string[];
+  statusChanges: { id: string; from: CornerStatus; to: CornerStatus }[];
+  moved: { id: string; metric: string; before: number; after: number; change: number; tolerance: number }[];
+  regressed: boolean;
+}

@@ -1,0 +1,5 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  test: { include: ['test/heavy/**/*.test.ts'], testTimeout: 1_800_000, pool: 'forks', maxWorkers: 2 },
+});
