@@ -1,0 +1,109 @@
+import type { Design, ExplicitCorner, LoadSpec } from '../design/types.js';
+import type { Corner, TolSide } from './types.js';
+
+/** Load resistance in ohm: %, W and A are converted at output.voltage; ohm is used as is. */
+export function loadResistance(spec: LoadSpec, design: Design): number {
+  const v = design.output.voltage;
+  switch (spec.kind) {
+    case 'percent': return (v * v) / (spec.value * design.operating.ratedPower);
+    case 'watt': return (v * v) / spec.value;
+    case 'ampere': return v / spec.value;
+    case 'ohm': return spec.value;
+  }
+}
+
+/** Compact, file-name-safe rendering of a number: 6 significant digits, '.' -> 'p', '-' -> 'm'. */
+export function idNumber(x: number): string {
+  const s = Number(x.toPrecision(6)).toString();
+  if (/e/i.test(s)) return s.replace('.', 'p').replace('+', '').replace('-', 'm').toLowerCase();
+  return s.replace('.', 'p').replace('-', 'm');
+}
+
+export function loadLabel(spec: LoadSpec): string {
+  switch (spec.kind) {
+    case 'percent': return `${Number((spec.value * 100).toPrecision(6))}%`;
+    case 'watt': return `${Number(spec.value.toPrecision(6))} W`;
+    case 'ampere': return `${Number(spec.value.toPrecision(6))} A`;
+    case 'ohm': return `${Number(spec.value.toPrecision(6))} ohm`;
+  }
+}
+
+function loadIdPart(spec: LoadSpec): string {
+  const unit = { percent: 'pct', watt: 'w', ampere: 'a', ohm: 'ohm' }[spec.kind];
+  return `${idNumber(spec.kind === 'percent' ? spec.value * 100 : spec.value)}${unit}`;
+}
+
+function freqIdPart(fs: number | null): string {
+  return fs === null ? 'reg' : `f${idNumber(fs / 1e3)}k`;
+}
+
+const SIDE_CODE: Record<TolSide, string> = { [-1]: 'L', 0: 'N', 1: 'H' };
+
+function tolIdPart(t: Corner['tolerance']): string {
+  if (t.lr === 0 && t.cr === 0 && t.lm === 0) return 'nom';
+  return `lr${SIDE_CODE[t.lr]}-cr${SIDE_CODE[t.cr]}-lm${SIDE_CODE[t.lm]}`;
+}
+
+/** Tolerance sets in a fixed order: nominal first, then every +/- combination (lr, cr, lm). */
+export function toleranceSets(design: Design): Corner['tolerance'][] {
+  const sets: Corner['tolerance'][] = [{ lr: 0, cr: 0, lm: 0 }];
+  if (design.tolerances.corners === 'nominal') return sets;
+  const sides = (tol: number): TolSide[] => (tol > 0 ? [-1, 1] : [0]);
+  for (const lr of sides(design.tolerances.lr))
+    for (const cr of sides(design.tolerances.cr))
+      for (const lm of sides(design.tolerances.lm))
+        if (lr !== 0 || cr !== 0 || lm !== 0) sets.push({ lr, cr, lm });
+  return sets;
+}
+
+function makeCorner(design: Design, vin: number, load: LoadSpec, fs: number | null,
+  tol: Corner['tolerance'], values: { lr: number; cr: number; lm: number }, prefix: string): Corner {
+  const r = loadResistance(load, design);
+  const v = design.output.voltage;
+  return {
+    id: `${prefix}v${idNumber(vin)}_${loadIdPart(load)}_${freqIdPart(fs)}_${tolIdPart(tol)}`,
+    vin, load: r, loadLabel: loadLabel(load), iout: v / r, pout: (v * v) / r, fs,
+    ...values, turnsRatio: design.tank.turnsRatio, tolerance: tol,
+  };
+}
+
+/**
+ * Every corner of a design: vin x load x frequency x tolerance set (in that nesting order), then
+ * the explicit `operating.corners`. Ids derive from the values, so the same file gives the same
+ * ids in the same order on every run; a repeated id gets a numeric suffix.
+ */
+export function expandCorners(design: Design): Corner[] {
+  const out: Corner[] = [];
+  const { tank, tolerances: tl } = design;
+  const freqs = design.operating.frequency === 'regulate' ? [null] : design.operating.frequency;
+  const sets = toleranceSets(design);
+  for (const vin of design.operating.vin)
+    for (const load of design.operating.load)
+      for (const fs of freqs)
+        for (const tol of sets) {
+          const values = { lr: tank.lr * (1 + tol.lr * tl.lr), cr: tank.cr * (1 + tol.cr * tl.cr), lm: tank.lm * (1 + tol.lm * tl.lm) };
+          out.push(makeCorner(design, vin, load, fs, tol, values, ''));
+        }
+  design.operating.corners.forEach((x: ExplicitCorner, i) => {
+    const values = { lr: x.lr ?? tank.lr, cr: x.cr ?? tank.cr, lm: x.lm ?? tank.lm };
+    out.push(makeCorner(design, x.vin, x.load, x.frequency, { lr: 0, cr: 0, lm: 0 }, values, `x${i + 1}_`));
+  });
+  const seen = new Map<string, number>();
+  for (const c of out) {
+    const k = (seen.get(c.id) ?? 0) + 1;
+    seen.set(c.id, k);
+    if (k > 1) c.id = `${c.id}-${k}`;
+  }
+  return out;
+}
+
+/** Keep corners whose id matches a glob-like pattern ('*' any run, '?' one character). */
+export function filterCorners(corners: Corner[], pattern: string | undefined): Corner[] {
+  if (!pattern) return corners;
+  const re = new RegExp(`^${pattern.split('*').map((p) => p.split('?').map(escapeRe).join('.')).join('.*')}$`, 'i');
+  return corners.filter((c) => re.test(c.id) || c.id.includes(pattern));
+}
+
+function escapeRe(s: string): string {
+  return s.replace(/[.+^${}()|[\]\\]/g, '\\$&');
+}

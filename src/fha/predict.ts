@@ -1,0 +1,147 @@
+import type { Design } from '../design/types.js';
+import type { Corner } from '../corners/types.js';
+import type { FhaResult } from './types.js';
+import { fhaGain, fnForGain, inputImpedance, peakGainFn, zeroPhaseFn } from './gain.js';
+
+/** Upper search limit for fn when regulating; beyond it the corner is reported unreachable. */
+const FN_MAX = 50;
+
+/** Inverter factor k_b: Vin_eff = k_b Vin (1/2 half-bridge, 1 full-bridge). */
+export function bridgeFactor(design: Design): number {
+  return design.topology.inverter === 'half-bridge' ? 0.5 : 1;
+}
+
+/** Total forward drop in the rectifier current path: VF (center-tapped) or 2 VF (full-bridge). */
+export function rectifierDrop(design: Design): number {
+  const vf = design.rectifier.forwardVoltage;
+  return design.topology.rectifier === 'center-tapped' ? vf : 2 * vf;
+}
+
+/** Tank constants of one corner: fr, fp, Zr, Ln. */
+export function tankConstants(c: Pick<Corner, 'lr' | 'cr' | 'lm'>) {
+  const fr = 1 / (2 * Math.PI * Math.sqrt(c.lr * c.cr));
+  const fp = 1 / (2 * Math.PI * Math.sqrt((c.lr + c.lm) * c.cr));
+  return { fr, fp, zr: Math.sqrt(c.lr / c.cr), ln: c.lm / c.lr };
+}
+
+/** Rac = 8 n^2 V_rect / (pi^2 Io) (method reference 2.2, with the diode drop in V_rect). */
+export function acResistance(n: number, vout: number, drop: number, load: number): number {
+  return (8 * n * n * (vout + drop) * load) / (Math.PI ** 2 * vout);
+}
+
+/**
+ * Output voltage at a fixed frequency: the unique root of M(Q(Vo)) Vin_eff / n - drop - Vo = 0
+ * (Q rises with Vo when drop > 0, so the left side falls strictly; bisection).
+ */
+function solveFixedVout(fn: number, zr: number, ln: number, n: number, vinEff: number, drop: number, load: number): number {
+  const g = (vo: number) => fhaGain(fn, zr / acResistance(n, vo, drop, load), ln) * vinEff / n - drop - vo;
+  if (drop === 0) return fhaGain(fn, zr / ((8 * n * n * load) / Math.PI ** 2), ln) * vinEff / n;
+  let lo = 1e-12 * vinEff;
+  if (g(lo) <= 0) return 0;
+  let hi = vinEff / n;
+  while (g(hi) > 0) hi *= 2;
+  for (let i = 0; i < 200; i++) {
+    const mid = 0.5 * (lo + hi);
+    if (mid === lo || mid === hi) break;
+    if (g(mid) > 0) lo = mid;
+    else hi = mid;
+  }
+  return 0.5 * (lo + hi);
+}
+
+/**
+ * FHA prediction for one corner (method reference sections 2-4). Fixed frequency: Vo follows
+ * from the gain. Regulated (corner.fs null): fs is solved for output.voltage on the branch above
+ * the zero-phase boundary; a target above M(fn_zp) is unreachable with ZVS and yields nulls.
+ */
+export function predictCorner(design: Design, corner: Corner): FhaResult {
+  const { fr, fp, zr, ln } = tankConstants(corner);
+  const n = corner.turnsRatio;
+  const vinEff = bridgeFactor(design) * corner.vin;
+  const drop = rectifierDrop(design);
+  const warnings: string[] = [];
+  const zvsRequiredCurrent = (2 * design.switches.coss * corner.vin) / design.switches.deadTime;
+
+  let fn: number | null;
+  let vout: number;
+  let q: number;
+  let gainTarget: number;
+  if (corner.fs === null) {
+    vout = design.output.voltage;
+    q = zr / acResistance(n, vout, drop, corner.load);
+    gainTarget = (n * (vout + drop)) / vinEff;
+    const fnZp = zeroPhaseFn(q, ln);
+    fn = fnForGain(gainTarget, q, ln, fnZp, FN_MAX);
+    if (fn === null && gainTarget > fhaGain(fnZp, q, ln)) {
+      warnings.push(`needs gain ${gainTarget.toFixed(4)} but FHA reaches at most ${fhaGain(fnZp, q, ln).toFixed(4)} with an inductive tank (at the zero-phase boundary): unreachable with ZVS`);
+    } else if (fn === null) {
+      warnings.push(`needs gain ${gainTarget.toFixed(4)}, still above it at fs = ${FN_MAX} fr: cannot regulate by frequency`);
+    }
+  } else {
+    fn = corner.fs / fr;
+    vout = solveFixedVout(fn, zr, ln, n, vinEff, drop, corner.load);
+    q = vout > 0 ? zr / acResistance(n, vout, drop, corner.load) : 0;
+    gainTarget = (n * (design.output.voltage + drop)) / vinEff;
+  }
+  if (gainTarget <= ln / (ln + 1)) {
+    warnings.push(`light load: needs gain ${gainTarget.toFixed(4)} <= Ln/(Ln+1) = ${(ln / (ln + 1)).toFixed(4)}, the lowest gain FHA reaches at no load; regulation relies on the load and parasitic capacitance makes it worse`);
+  }
+  const fnZp = zeroPhaseFn(q, ln);
+  const fnPk = peakGainFn(q, ln);
+  const base = {
+    fr, fp, zr, rac: zr / q, q, ln, gainTarget, zvsRequiredCurrent,
+    fsZeroPhase: fnZp * fr, gainAtZeroPhase: fhaGain(fnZp, q, ln),
+    fsPeakGain: fnPk * fr, peakGain: q === 0 ? Infinity : fhaGain(fnPk, q, ln),
+    warnings,
+  };
+  if (fn === null) return { ...base, ...nullStresses() };
+
+  const fs = fn * fr;
+  const gain = fhaGain(fn, q, ln);
+  const vrect = vout + drop;
+  const iout = vout / corner.load;
+  const z = inputImpedance(fn, q, ln);
+  const phase = Math.atan2(z.im, z.re);
+  const ws = 2 * Math.PI * fs;
+  const ioeRms = (Math.PI * iout) / (2 * Math.SQRT2 * n);
+  const imPk = (2 * n * vrect) / (Math.PI ** 2 * fs * corner.lm);
+  const irRms = Math.sqrt(ioeRms ** 2 + imPk ** 2 / 2);
+  const irPk = Math.SQRT2 * irRms;
+  const vcrAc = irPk / (ws * corner.cr);
+  const vcrDc = design.topology.inverter === 'half-bridge' ? corner.vin / 2 : 0;
+  const iOff = irPk * Math.sin(phase);
+  const region = fn >= fnZp ? 'inductive' : 'capacitive';
+  const zvs = region === 'inductive' && iOff >= zvsRequiredCurrent;
+  const vf = design.rectifier.forwardVoltage;
+  if (region === 'inductive' && fn > 1 && design.tank.lr * iOff ** 2 < 2 * design.switches.coss * corner.vin ** 2) {
+    warnings.push('above resonance only Lr drives the dead-time transition: its energy is below what the switch capacitances need (method reference 4.1, condition 3)');
+  }
+  return {
+    ...base,
+    fs, fn, gain, vout, iout, region, phase, zvs,
+    zvsMargin: iOff - zvsRequiredCurrent,
+    zcs: fs <= fr,
+    tankCurrentRms: irRms,
+    tankCurrentPeak: irPk,
+    magnetizingCurrentPeak: imPk,
+    crVoltagePeak: vcrDc + vcrAc,
+    crVoltageMin: vcrDc - vcrAc,
+    switchCurrentRms: irRms / Math.SQRT2,
+    switchTurnOffCurrent: iOff,
+    diodeCurrentAvg: iout / 2,
+    diodeCurrentPeak: (Math.PI / 2) * iout,
+    diodeCurrentRms: (Math.PI / 4) * iout,
+    diodeReverseVoltage: design.topology.rectifier === 'center-tapped' ? 2 * vout + vf : vout + vf,
+    outputRippleCurrentRms: Math.sqrt(Math.PI ** 2 / 8 - 1) * iout,
+  };
+}
+
+function nullStresses() {
+  return {
+    fs: null, fn: null, gain: null, vout: null, iout: null, region: null, phase: null, zvs: null,
+    zvsMargin: null, zcs: null, tankCurrentRms: null, tankCurrentPeak: null, magnetizingCurrentPeak: null,
+    crVoltagePeak: null, crVoltageMin: null, switchCurrentRms: null, switchTurnOffCurrent: null,
+    diodeCurrentAvg: null, diodeCurrentPeak: null, diodeCurrentRms: null, diodeReverseVoltage: null,
+    outputRippleCurrentRms: null,
+  } as const;
+}
