@@ -31,6 +31,19 @@ export interface SimResult {
   vectors: Record<string, Float64Array>;
   diagnostics: Diagnostic[];
   wallMs: number;
+  /** Native engine with `keepDir`: the job's directory (deck.cir, includes, out.raw), left in place. */
+  workDir?: string;
+  /** Set by runWithRetries: every try in order, the last one being this result. */
+  attempts?: Attempt[];
+}
+
+/** One try of a job under the retry ladder. */
+export interface Attempt {
+  /** Rung label, e.g. 'as configured', 'rshunt=1e9'. */
+  label: string;
+  outcome: 'ok' | SimFailure['kind'];
+  message?: string;
+  wallMs: number;
 }
 
 export interface SimEngine {

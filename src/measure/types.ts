@@ -29,7 +29,13 @@ export interface Waveforms {
   inverter: Inverter;
   rectifier: Rectifier;
   vin: number;
+  /** Design (commanded) switching frequency, Hz; the gate edges are checked against it. */
   fs: number;
+  /**
+   * Optional (added by measure): resistive load, ohm. With it iout = avg(vout) / load and
+   * pout = avg(vout^2) / load; without it iout comes from the rectifier current balance.
+   */
+  load?: number;
   turnsRatio: number;
   /** Rectifier forward drop used for the gain equivalent: VF (CT) or 2 VF (FB rectifier). */
   rectifierDrop: number;
@@ -61,38 +67,66 @@ export interface MeasureWindow {
 
 export type ZvsState = 'zvs' | 'partial' | 'hard';
 
-/** Quantities measured from one steady-state window. Names match FhaResult where both exist. */
+/**
+ * Quantities measured from one steady-state window (see measure/measure.ts). Names match FhaResult
+ * where both exist. SI units. "Worst" = over every switch/diode and every edge/interval in the window.
+ */
 export interface SimMetrics {
+  /** From the high-side gate rising edges, Hz. */
   fs: number;
+  /** n (vout + rectifierDrop) / Vin_eff; Vin_eff = Vin/2 (HB) or Vin (FB). */
   gain: number;
+  /** Time-weighted average, V. */
   vout: number;
+  /** Peak-to-peak, V. */
   voutRipple: number;
+  /** avg(vout) / load; without Waveforms.load, rectifier output current minus capacitor current, A. */
   iout: number;
+  /** avg(vout^2) / load; without Waveforms.load, vout * iout, W. */
   pout: number;
   tankCurrentRms: number;
+  /** max |i_t|, A. */
   tankCurrentPeak: number;
+  /** max |i_m|, A. */
   magnetizingCurrentPeak: number;
+  /** max v_Cr, V. */
   crVoltagePeak: number;
+  /** min v_Cr, V. */
   crVoltageMin: number;
+  /** Largest switch RMS current, A. */
   switchCurrentRms: number;
+  /**
+   * Smallest tank current at a gate falling edge, signed positive in the direction that swings the
+   * node towards the incoming switch (+i_t at high-side-group turn-off, -i_t otherwise), A.
+   */
   switchTurnOffCurrent: number;
+  /** Largest per-diode average, peak and RMS current, A (0 without conduction). */
   diodeCurrentAvg: number;
   diodeCurrentPeak: number;
   diodeCurrentRms: number;
+  /** Largest reverse (cathode - anode) voltage, V. */
   diodeReverseVoltage: number;
+  /** Most negative diode current as a positive number, A; 0 when never negative. */
   diodeReverseCurrent: number;
+  /** RMS of the output capacitor current (including any DC part), A. */
   outputRippleCurrentRms: number;
   /** True when every gate turn-on edge in the window is ZVS. */
   zvs: boolean;
+  /** State of the worst edge. */
   zvsState: ZvsState;
-  /** Worst switch voltage at a turn-on edge, as a fraction of Vin. */
+  /** Worst (largest) switch voltage at a turn-on edge, as a fraction of Vin. */
   zvsWorstVoltage: number;
-  /** Worst (smallest) time between v_ds reaching the threshold and the gate edge, s; negative = late. */
+  /**
+   * Worst (smallest) time from v_ds falling to the threshold to the gate edge, s. An edge without ZVS
+   * gives -deadTime (-Ts/2 when deadTime = 0), so negative = late and the value stays finite.
+   */
   zvsMarginTime: number;
+  /** True when every conduction interval's zcsRatio is within the threshold (true without conduction). */
   zcs: boolean;
-  /** Worst diode current at the primary switching edge divided by that conduction's peak. */
+  /** Worst diode current at the primary edge that cuts it, divided by that conduction's peak (0 without conduction). */
   zcsRatio: number;
+  /** 'capacitive' when any turn-on edge sees tank current in the wrong direction, else 'inductive'. */
   region: 'inductive' | 'capacitive';
-  /** P/N/O sequence of the half period starting at the high-side turn-on, e.g. 'PO', 'NP'. */
+  /** Most frequent P/N/O sequence over the high-side on-time (turn-on to turn-off), e.g. 'PO', 'NP'. */
   mode: string;
 }

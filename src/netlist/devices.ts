@@ -9,21 +9,28 @@ export function diodeFitCurrent(design: Design): number {
   return design.operating.ratedPower / design.output.voltage;
 }
 
+/** Reverse saturation current of the fitted diode relative to the fit current (leakage 1e-9 of rated). */
+export const DIODE_LEAKAGE_RATIO = 1e-9;
+
+/** Smallest knee voltage the fitted diode is given: an "ideal" (0 V) diode is modelled with 0.2 V at rated current (a steeper exponential makes ngspice's Newton steps unreliable: reverse currents of amperes were seen at N = 0.1). */
+export const MIN_KNEE_VOLTAGE = 0.2;
+
 /**
- * Saturation current of the fitted rectifier diode (n = 1): V = Vt ln(I/Is) + I rs equals
- * forwardVoltage + I rs at the rated current. A forwardVoltage of 0 (ideal) is modelled with a
- * drop of one thermal voltage (about 26 mV) at rated current, the smallest that still converges.
+ * Fitted rectifier diode: V = N Vt ln(I/Is) + I rs, with Is = 1e-9 of the rated output current (so
+ * the reverse leakage stays negligible) and the emission coefficient N chosen so that the drop at
+ * rated current is forwardVoltage + I rs. A large Is would make a low-drop diode conduct Is in
+ * reverse, so the fit moves N, not Is.
  */
-export function diodeSaturationCurrent(design: Design): number {
-  const vf = Math.max(design.rectifier.forwardVoltage, THERMAL_VOLTAGE);
-  return diodeFitCurrent(design) * Math.exp(-vf / THERMAL_VOLTAGE);
+export function diodeFit(design: Design): { is: number; n: number; rs: number } {
+  const vf = Math.max(design.rectifier.forwardVoltage, MIN_KNEE_VOLTAGE);
+  const is = diodeFitCurrent(design) * DIODE_LEAKAGE_RATIO;
+  return { is, n: vf / (THERMAL_VOLTAGE * Math.log(1 / DIODE_LEAKAGE_RATIO)), rs: Math.max(design.rectifier.resistance, 1e-6) };
 }
 
 export function diodeModelCard(design: Design): string {
   if (design.devices.diodeModel) return '';
-  const is = spiceNumber(diodeSaturationCurrent(design));
-  const rs = spiceNumber(Math.max(design.rectifier.resistance, 1e-6));
-  return `.model tk_d d(is=${is} n=1 rs=${rs} cjo=0 tt=0)\n`;
+  const f = diodeFit(design);
+  return `.model tk_d d(is=${spiceNumber(f.is)} n=${spiceNumber(f.n)} rs=${spiceNumber(f.rs)} cjo=0 tt=0)\n`;
 }
 
 /** Rectifier diode i between anode and cathode: the fitted model, or the user's model or 2-pin subcircuit. */

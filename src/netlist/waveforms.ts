@@ -2,7 +2,7 @@ import type { Design } from '../design/types.js';
 import type { Corner } from '../corners/types.js';
 import type { Waveforms, SwitchTrace, DiodeTrace } from '../measure/types.js';
 import type { DeckSeed } from './types.js';
-import { rectifierDrop } from '../fha/predict.js';
+import { MIN_KNEE_VOLTAGE } from './devices.js';
 
 type Vectors = Record<string, Float64Array>;
 
@@ -61,7 +61,7 @@ export function toWaveforms(design: Design, corner: Corner, fs: number, v: Vecto
   const rect = fbr ? [id[0]!, id[2]!] : [id[0]!, id[1]!];
   return {
     t, inverter: design.topology.inverter, rectifier: design.topology.rectifier, vin, fs, turnsRatio: n,
-    rectifierDrop: rectifierDrop(design), deadTime: design.switches.deadTime, load: corner.load,
+    rectifierDrop: modelDrop(design), deadTime: design.switches.deadTime, load: corner.load,
     tankCurrent: ir,
     magnetizingCurrent: map(len, (i) => ir[i]! - isecRef[i]!),
     crVoltage: map(len, (i) => t2[i]! - t3[i]!),
@@ -83,4 +83,13 @@ export function finalState(w: Waveforms, v: Vectors): DeckSeed {
     va: need(v, 'v(a)')[k]!,
     vb: w.inverter === 'full-bridge' ? need(v, 'v(b)')[k]! : 0,
   };
+}
+
+/**
+ * Forward drop of the simulated rectifier path: the design's drop, except that the fitted diode
+ * never drops less than MIN_KNEE_VOLTAGE (a user diode model is taken at the design's value).
+ */
+export function modelDrop(design: Design): number {
+  const vf = design.devices.diodeModel ? design.rectifier.forwardVoltage : Math.max(design.rectifier.forwardVoltage, MIN_KNEE_VOLTAGE);
+  return design.topology.rectifier === 'center-tapped' ? vf : 2 * vf;
 }

@@ -4,8 +4,19 @@ import type { SimEngine, SimFailure, Attempt } from '../engine/types.js';
 import type { DeckSeed, StepProfile } from '../netlist/types.js';
 import type { SimMetrics, Waveforms } from '../measure/types.js';
 import { buildDeck, STEP_PROFILES } from '../netlist/deck.js';
+import { runWithRetries, addRshunt, switchIntegrationMethod, type RetryRung } from '../engine/retry.js';
 import { finalState, toWaveforms } from '../netlist/waveforms.js';
 import { makeSpan, measure, spanAverage, valueAt, locate } from '../measure/index.js';
+
+/**
+ * Retry ladder for convergence failures (they fail within milliseconds, so retrying is cheap):
+ * a stronger shunt conductance, the other integration method, then a zero-state start.
+ */
+export const RETRY_RUNGS: readonly RetryRung[] = [
+  { label: 'rshunt=1e7', transform: (d) => addRshunt(d, 1e7) },
+  { label: 'other integration method', transform: switchIntegrationMethod },
+  { label: 'zero-state start', transform: (d) => d.replace(/ ic=[^ \n]+/g, ' ic=0') },
+];
 
 /** Settling windows: each run simulates two windows of this many whole cycles. */
 export const WINDOW_CYCLES = 10;
@@ -73,10 +84,10 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
   while (cycles + 2 * K <= Math.max(opts.maxCycles, 2 * K)) {
     const deck = buildDeck({ design, corner, fs, seed: state, cycles: 2 * K, saveCycles: 2 * K, profile });
     const timeoutMs = opts.timeoutMs ?? Math.max(30_000, 2 * K * 100 * (profile.stepsPerPeriod / 350));
-    const res = await engine.run({ id: corner.id, deck: deck.text, timeoutMs, signal: opts.signal });
+    const res = await runWithRetries(engine, { id: corner.id, deck: deck.text, timeoutMs, signal: opts.signal }, RETRY_RUNGS);
     runs++;
     cycles += 2 * K;
-    attempts.push(...(res.attempts ?? [{ label: 'as configured', outcome: res.ok ? 'ok' : res.failure!.kind, wallMs: res.wallMs }]));
+    attempts.push(...res.attempts);
     if (!res.ok) {
       const detail = res.diagnostics.filter((d) => d.level === 'error').map((d) => d.text).slice(-5).join('\n');
       return { fs, ok: false, failure: { ...res.failure!, detail }, settled: false, settleError: NaN, cycles, runs, windowStart: 0, attempts };

@@ -1,0 +1,30 @@
+import type { StudyProgress } from '../run/study.js';
+
+/**
+ * Progress on stderr: a redrawn bar with corners done, failed and an ETA on a TTY; one plain line
+ * per finished corner otherwise (CI logs).
+ */
+export function createProgress(stream: NodeJS.WriteStream, total: number, now: () => number = Date.now) {
+  const t0 = now();
+  const tty = Boolean(stream.isTTY);
+  return {
+    update(p: StudyProgress) {
+      if (!tty) {
+        stream.write(`[${p.done}/${p.total}] ${p.id} ${p.status}\n`);
+        return;
+      }
+      const width = 24;
+      const filled = Math.round((p.done / Math.max(p.total, 1)) * width);
+      const elapsed = (now() - t0) / 1000;
+      const eta = p.done > 0 ? (elapsed / p.done) * (p.total - p.done) : NaN;
+      const bar = `${'#'.repeat(filled)}${'.'.repeat(width - filled)}`;
+      stream.write(`\r[${bar}] ${p.done}/${p.total} corners, ${p.failed} failed, ETA ${Number.isFinite(eta) ? `${Math.ceil(eta)} s` : '?'}   `);
+    },
+    start() {
+      if (!tty) stream.write(`simulating ${total} corners\n`);
+    },
+    end() {
+      if (tty) stream.write('\n');
+    },
+  };
+}

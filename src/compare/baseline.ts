@@ -1,0 +1,45 @@
+import type { BaselineReport, Results } from '../report/types.js';
+import { COMPARED } from './compare.js';
+
+/** Default relative change of a simulated metric that counts as a regression against a baseline. */
+export const BASELINE_TOLERANCE = 0.01;
+
+/**
+ * Compare a run with an earlier results.json: corners added or removed, status changes, and
+ * simulated metrics that moved by more than `tolerance` (relative to the baseline value).
+ * `regressed` is true for any removed corner, status change or moved metric.
+ */
+export function compareBaseline(current: Results, baseline: Results, file: string, tolerance = BASELINE_TOLERANCE): BaselineReport {
+  const before = new Map(baseline.corners.map((c) => [c.id, c]));
+  const now = new Map(current.corners.map((c) => [c.id, c]));
+  const added = current.corners.filter((c) => !before.has(c.id)).map((c) => c.id);
+  const removed = baseline.corners.filter((c) => !now.has(c.id)).map((c) => c.id);
+  const statusChanges: BaselineReport['statusChanges'] = [];
+  const moved: BaselineReport['moved'] = [];
+  for (const c of current.corners) {
+    const b = before.get(c.id);
+    if (!b) continue;
+    if (b.status !== c.status) statusChanges.push({ id: c.id, from: b.status, to: c.status });
+    if (!b.sim || !c.sim) continue;
+    for (const { metric } of COMPARED) {
+      const x0 = b.sim[metric];
+      const x1 = c.sim[metric];
+      if (typeof x0 !== 'number' || typeof x1 !== 'number') continue;
+      const change = x0 === 0 ? (x1 === 0 ? 0 : Infinity) : (x1 - x0) / Math.abs(x0);
+      if (Math.abs(change) > tolerance) moved.push({ id: c.id, metric, before: x0, after: x1, change, tolerance });
+    }
+    for (const metric of ['zvs', 'zcs', 'region', 'mode'] as const) {
+      if (b.sim[metric] !== c.sim[metric]) statusChanges.push({ id: `${c.id}:${metric}`, from: String(b.sim[metric]) as never, to: String(c.sim[metric]) as never });
+    }
+  }
+  return { file, added, removed, statusChanges, moved, regressed: removed.length > 0 || statusChanges.length > 0 || moved.length > 0 };
+}
+
+export function renderBaseline(r: BaselineReport): string {
+  const lines = [`Baseline ${r.file}: ${r.regressed ? 'REGRESSED' : 'no change beyond tolerance'}`];
+  if (r.added.length) lines.push(`  added corners: ${r.added.join(', ')}`);
+  if (r.removed.length) lines.push(`  removed corners: ${r.removed.join(', ')}`);
+  for (const s of r.statusChanges) lines.push(`  ${s.id}: ${s.from} -> ${s.to}`);
+  for (const m of r.moved) lines.push(`  ${m.id} ${m.metric}: ${m.before.toPrecision(5)} -> ${m.after.toPrecision(5)} (${(m.change * 100).toFixed(2)} %, tolerance ${(m.tolerance * 100).toFixed(2)} %)`);
+  return `${lines.join('\n')}\n`;
+}

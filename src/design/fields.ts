@@ -1,0 +1,122 @@
+import type { UnitKind } from '../units/index.js';
+
+/**
+ * Leaf fields of the design file, as data. The parser, the JSON Schema and the reference
+ * documentation all read these tables, so a field's unit, limits and default live in one place.
+ *
+ * Limits: `sign` is the physical lower limit (error). `below`/`atMost` is a hard upper limit
+ * (error). `plausible` is a sanity window whose violation is an error "implausible, check the unit
+ * prefix"; `usual` is a wider-than-typical window whose violation is only a warning. The windows
+ * are common practice chosen to catch unit-prefix slips (a factor of 1000), not design rules.
+ */
+export interface QuantitySpec {
+  kind: 'quantity';
+  unit: UnitKind;
+  sign: 'positive' | 'nonNegative';
+  below?: number;
+  atMost?: number;
+  plausible?: readonly [number, number];
+  usual?: readonly [number, number];
+  integer?: boolean;
+  default?: number;
+  /** Shown in messages: `expected an inductance > 0 H such as "310 uH"`. */
+  example: string;
+  description: string;
+}
+export interface EnumSpec {
+  kind: 'enum';
+  values: readonly string[];
+  default?: string;
+  description: string;
+}
+export interface BoolSpec {
+  kind: 'bool';
+  default?: boolean;
+  description: string;
+}
+export type FieldSpec = QuantitySpec | EnumSpec | BoolSpec;
+
+const q = (unit: UnitKind, example: string, description: string, more: Partial<QuantitySpec> = {}): QuantitySpec =>
+  ({ kind: 'quantity', unit, sign: 'positive', example, description, ...more });
+const tol = (description: string): QuantitySpec =>
+  q('ratio', '5%', description, { sign: 'nonNegative', below: 0.5, default: 0 });
+const limit = (dflt: number, description: string): QuantitySpec =>
+  q('ratio', `${dflt * 100}%`, description, { atMost: 1, default: dflt });
+
+const L_WINDOW = [1e-9, 1] as const;
+
+export const TANK_FIELDS = {
+  lr: q('henry', '60 uH', 'Series resonant inductance Lr referred to the primary (discrete inductor plus leakage).', { plausible: L_WINDOW }),
+  cr: q('farad', '42 nF', 'Series resonant capacitance Cr (for a split capacitor, the sum of both halves).', { plausible: [1e-12, 1], usual: [1e-12, 1e-3] }),
+  lm: q('henry', '310 uH', 'Magnetizing inductance Lm referred to the primary; must exceed Lr.', { plausible: L_WINDOW }),
+  turnsRatio: q('number', '8', 'Turns ratio n = Np/Ns; with a center-tapped rectifier Ns is one half of the secondary.', { plausible: [1e-3, 1000] }),
+  integrated: { kind: 'bool', default: false, description: 'Lr is realised as transformer leakage (simulated with a coupling coefficient from Lr and Lm) instead of a discrete inductor.' } as BoolSpec,
+} satisfies Record<string, FieldSpec>;
+
+export const SECTION_FIELDS = {
+  topology: {
+    inverter: { kind: 'enum', values: ['half-bridge', 'full-bridge'], description: 'Primary bridge: half-bridge (tank sees +-Vin/2) or full-bridge (+-Vin).' } as EnumSpec,
+    rectifier: { kind: 'enum', values: ['center-tapped', 'full-bridge'], description: 'Secondary rectifier: center-tapped (one diode drop) or full-bridge (two diode drops).' } as EnumSpec,
+  },
+  tank: TANK_FIELDS,
+  switches: {
+    deadTime: q('second', '200 ns', 'Dead time between the gate signals of one bridge leg; must be shorter than half the switching period.', { plausible: [1e-12, 1e-4], usual: [1e-9, 1e-5] }),
+    coss: q('farad', '150 pF', 'Output capacitance of one switch at the working voltage (charge-equivalent), used for ZVS.', { plausible: [1e-15, 1e-6] }),
+    rdsOn: q('ohm', '120 mohm', 'On-state resistance of one switch.', { plausible: [1e-6, 100] }),
+  },
+  rectifier: {
+    forwardVoltage: q('volt', '0.5 V', 'Forward voltage of one rectifier diode; 0 for ideal diodes.', { sign: 'nonNegative', plausible: [0, 10] }),
+    resistance: q('ohm', '5 mohm', 'Series resistance of one rectifier diode; may be 0.', { sign: 'nonNegative', plausible: [0, 100] }),
+  },
+  output: {
+    voltage: q('volt', '24 V', 'Output voltage: the regulation target, and the voltage at which loads in %, A or W are converted to a resistance.', { plausible: [1e-3, 1e5] }),
+    capacitance: q('farad', '470 uF', 'Output filter capacitance.', { plausible: [1e-12, 1] }),
+    esr: q('ohm', '20 mohm', 'Equivalent series resistance of the output capacitor; may be 0.', { sign: 'nonNegative', plausible: [0, 100] }),
+  },
+  tolerances: {
+    lr: tol('Relative tolerance of Lr, 0 to below 50 %.'),
+    cr: tol('Relative tolerance of Cr, 0 to below 50 %.'),
+    lm: tol('Relative tolerance of Lm, 0 to below 50 %.'),
+    corners: { kind: 'enum', values: ['extremes', 'nominal'], default: 'nominal', description: 'nominal: tank at nominal values only; extremes: every -/0/+ combination of Lr, Cr, Lm.' } as EnumSpec,
+  },
+  compare: {
+    vout: limit(0.03, 'Allowed relative difference between FHA and simulated output voltage.'),
+    fs: limit(0.05, 'Allowed relative difference between FHA and simulated switching frequency (regulated corners).'),
+    gain: limit(0.03, 'Allowed relative difference between FHA and simulated tank gain.'),
+    currents: limit(0.1, 'Allowed relative difference for currents (tank rms, magnetizing peak, turn-off current, ...).'),
+    voltages: limit(0.1, 'Allowed relative difference for voltages (Cr peak, ...).'),
+  },
+  simulation: {
+    accuracy: { kind: 'enum', values: ['fast', 'normal', 'fine'], default: 'normal', description: 'Simulation accuracy profile (time step and tolerances).' } as EnumSpec,
+    settleTolerance: q('ratio', '0.1%', 'Relative agreement of successive output-voltage averages that counts as steady state.', { default: 0.001, below: 0.5, usual: [1e-6, 0.01] }),
+    maxCycles: q('number', '2000', 'Switching periods simulated at most per corner before it is reported as not settled.', { default: 2000, integer: true, plausible: [1, 1e6], usual: [50, 1e5] }),
+    zvsThreshold: q('ratio', '5%', 'Switch voltage at turn-on below this fraction of Vin counts as ZVS.', { default: 0.05, below: 0.5 }),
+  },
+} satisfies Record<string, Record<string, FieldSpec>>;
+
+export type SectionName = keyof typeof SECTION_FIELDS;
+
+/** Sections that may be left out entirely (every field has a default). */
+export const OPTIONAL_SECTIONS: readonly SectionName[] = ['tolerances', 'compare', 'simulation'];
+
+/** Items of `operating` (each may be one value or a list, except ratedPower). */
+export const OPERATING_FIELDS = {
+  vin: q('volt', '390 V', 'DC input voltage(s).', { plausible: [1e-3, 1e5] }),
+  ratedPower: q('watt', '240 W', 'Rated output power; loads written in % are shares of it.', { plausible: [1e-3, 1e8] }),
+  frequency: q('hertz', '100 kHz', 'Fixed switching frequency (or frequencies), or "regulate" to solve fs for output.voltage.', { plausible: [1, 1e9] }),
+} satisfies Record<string, QuantitySpec>;
+
+/** Sanity windows per load kind (percent as a ratio: 1000 % = 10). */
+export const LOAD_WINDOWS = {
+  percent: [1e-6, 10],
+  ohm: [1e-6, 1e9],
+  ampere: [1e-9, 1e5],
+  watt: [1e-6, 1e8],
+} as const;
+
+export const LOAD_DESCRIPTION =
+  'Load: a share of ratedPower ("50%"), a resistance ("12 ohm"), a current ("5 A") or a power ("120 W"); must be > 0.';
+
+/** Longest list accepted for operating.vin / load / frequency, and for operating.corners. */
+export const MAX_LIST = 100;
+export const MAX_CORNERS = 1000;

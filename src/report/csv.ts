@@ -1,0 +1,29 @@
+import type { Results } from './types.js';
+
+const HEADER = ['corner', 'status', 'vin_V', 'load_ohm', 'metric', 'fha', 'sim', 'error', 'tolerance', 'verdict', 'unexpected_sign', 'reason'];
+
+/** RFC 4180 field quoting. */
+export function csvField(v: unknown): string {
+  const s = v === null || v === undefined ? '' : typeof v === 'number' ? (Number.isFinite(v) ? String(v) : '') : String(v);
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/**
+ * One row per corner and metric (results.csv). FHA-only corners list the FHA values with empty
+ * simulation columns; failed corners have a single 'failure' row carrying the reason.
+ */
+export function renderResultsCsv(results: Results): string {
+  const lines = [HEADER.join(',')];
+  for (const c of results.corners) {
+    const lead = [c.id, c.status, c.inputs.vin, c.inputs.load];
+    if (c.comparison.length > 0) {
+      for (const r of c.comparison) lines.push([...lead, r.metric, r.fha, r.sim, r.error, r.tolerance, r.verdict, r.unexpectedSign ? 'yes' : '', r.reason ?? ''].map(csvField).join(','));
+    } else {
+      for (const [k, v] of Object.entries(c.fha)) {
+        if (typeof v === 'number' || typeof v === 'boolean' || typeof v === 'string') lines.push([...lead, k, v, '', '', '', '', '', ''].map(csvField).join(','));
+      }
+    }
+    if (c.failure) lines.push([...lead, 'failure', '', '', '', '', 'failed', '', `${c.failure.kind}: ${c.failure.message}`].map(csvField).join(','));
+  }
+  return `${lines.join('\r\n')}\r\n`;
+}

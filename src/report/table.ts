@@ -1,0 +1,94 @@
+import type { CornerResult, Results } from './types.js';
+
+export interface TableOptions {
+  /** ANSI emphasis for flagged cells and statuses (only on a TTY). @default false */
+  color?: boolean;
+}
+
+const pad = (s: string, w: number) => (s.length >= w ? s : s + ' '.repeat(w - s.length));
+const lpad = (s: string, w: number) => (s.length >= w ? s : ' '.repeat(w - s.length) + s);
+
+function num(x: number | null | undefined, digits = 4): string {
+  if (x === null || x === undefined || !Number.isFinite(x)) return '-';
+  return Number(x.toPrecision(digits)).toString();
+}
+
+function yn(b: boolean | null | undefined): string {
+  return b === null || b === undefined ? '-' : b ? 'yes' : 'NO';
+}
+
+/** The corner table of `tankcheck fha`: one row per corner with the key FHA figures. */
+export function renderFhaTable(results: Results): string {
+  const head = ['corner', 'Vin V', 'load', 'fs kHz', 'fn', 'Q', 'gain M', 'Vout V', 'region', 'ZVS', 'ZCS', 'Ir,rms A', 'Vcr,pk V', 'Id,pk A'];
+  const rows = results.corners.map((c) => {
+    const f = c.fha;
+    return [c.id, num(c.inputs.vin), c.inputs.loadLabel, num(f.fs === null ? null : f.fs / 1e3), num(f.fn, 3), num(f.q, 3), num(f.gain),
+      num(f.vout), f.region ?? 'n/a', yn(f.zvs), yn(f.zcs), num(f.tankCurrentRms, 3), num(f.crVoltagePeak, 4), num(f.diodeCurrentPeak, 3)];
+  });
+  const out = grid(head, rows);
+  const notes = results.corners.flatMap((c) => c.fha.warnings.map((w) => `  ${c.id}: ${w}`));
+  return notes.length ? `${out}\nNotes:\n${notes.join('\n')}\n` : out;
+}
+
+function grid(head: string[], rows: string[][]): string {
+  const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
+  const line = (r: string[]) => r.map((x, i) => (i === 0 ? pad(x, widths[i]!) : lpad(x, widths[i]!))).join('  ').trimEnd();
+  return [line(head), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)].join('\n') + '\n';
+}
+
+type Cell = { text: string; flagged: boolean };
+
+function triple(c: CornerResult, metric: string, scale = 1, digits = 4): Cell[] {
+  const r = c.comparison.find((x) => x.metric === metric);
+  if (!r) return [{ text: '-', flagged: false }, { text: '-', flagged: false }, { text: '', flagged: false }];
+  const f = typeof r.fha === 'number' ? num(r.fha / scale, digits) : '-';
+  const s = typeof r.sim === 'number' ? num(r.sim / scale, digits) : '-';
+  const flagged = r.verdict === 'diverged';
+  const e = r.error === null ? (flagged ? '!' : '') : `${r.error >= 0 ? '+' : ''}${(r.error * 100).toFixed(1)}%`;
+  return [{ text: f, flagged: false }, { text: s, flagged: false }, { text: `${e}${flagged ? '*' : ''}${r.unexpectedSign ? '?' : ''}`, flagged }];
+}
+
+function status(c: CornerResult, metric: 'zvs' | 'zcs'): Cell {
+  const r = c.comparison.find((x) => x.metric === metric);
+  const show = (v: unknown) => (v === true ? 'y' : v === false ? 'n' : '-');
+  const flagged = r?.verdict === 'diverged';
+  return { text: r ? `${show(r.fha)}/${show(r.sim)}${flagged ? '*' : ''}` : '-', flagged };
+}
+
+/**
+ * Side-by-side FHA | sim | error table of `tankcheck run`. A '*' marks a value beyond tolerance
+ * and '?' an error whose sign contradicts FHA theory, so the table reads the same without colour.
+ */
+export function renderRunTable(results: Results, opts: TableOptions = {}): string {
+  const em = (cell: Cell) => (opts.color && cell.flagged ? `\u001b[1;7m${cell.text}\u001b[0m` : cell.text);
+  const head1 = ['', '', 'fs kHz', '', '', 'gain M', '', '', 'Ir,rms A', '', '', 'ZVS', 'ZCS', ''];
+  const head2 = ['corner', 'status', 'FHA', 'sim', 'err', 'FHA', 'sim', 'err', 'FHA', 'sim', 'err', 'F/S', 'F/S', 'mode'];
+  const rows: Cell[][] = results.corners.map((c) => [
+    { text: c.id, flagged: false },
+    { text: c.status, flagged: c.status === 'failed' || c.status === 'diverged' || c.status === 'not-settled' },
+    ...triple(c, 'fs', 1e3, 4), ...triple(c, 'gain', 1, 4), ...triple(c, 'tankCurrentRms', 1, 3),
+    status(c, 'zvs'), status(c, 'zcs'), { text: c.sim?.mode ?? '-', flagged: false },
+  ]);
+  const widths = head2.map((h, i) => Math.max(h.length, head1[i]!.length, ...rows.map((r) => r[i]!.text.length)));
+  const fmt = (cells: Cell[]) => cells.map((x, i) => {
+    const w = widths[i]!;
+    const padded = i < 2 || i === 13 ? pad(x.text, w) : lpad(x.text, w);
+    return x.flagged ? padded.replace(x.text, em(x)) : padded;
+  }).join('  ').trimEnd();
+  const plain = (r: string[]) => fmt(r.map((text) => ({ text, flagged: false })));
+  const lines = [plain(head1), plain(head2), plain(widths.map((w) => '-'.repeat(w))), ...rows.map(fmt)];
+  const failures = results.corners.filter((c) => c.failure).map((c) => `  ${c.id}: ${c.failure!.kind}: ${c.failure!.message}`);
+  if (failures.length) lines.push('', 'Failed corners:', ...failures);
+  return `${lines.join('\n')}\n`;
+}
+
+/** One-paragraph summary printed after the table. */
+export function renderSummary(results: Results): string {
+  const s = results.summary;
+  const parts = [`${s.corners} corners: ${s.ok} ok, ${s.diverged} diverged, ${s.failed} failed, ${s.notSettled} not settled`];
+  if (s.predicted) parts.push(`${s.predicted} not simulated`);
+  const head = `${parts.join(', ')}. Engine ${results.engine?.name ?? 'none'} ${results.engine?.version ?? ''}; ${s.simulations} operating points simulated, ${s.cacheHits} from cache.`;
+  const worst = s.worst.slice(0, 5).map((w) => `  ${w.id} ${w.metric}${w.error !== null ? ` ${(w.error * 100).toFixed(1)} % (tolerance ${((w.tolerance ?? 0) * 100).toFixed(0)} %)` : ' status differs'}`);
+  const inc = results.incomplete ? '\nINCOMPLETE: the run was interrupted; unfinished corners carry FHA values only.' : '';
+  return `${head}${worst.length ? `\nLargest divergences:\n${worst.join('\n')}` : ''}${inc}\n`;
+}

@@ -1,0 +1,115 @@
+import type { Design } from '../design/types.js';
+import type { Corner } from '../corners/types.js';
+import type { SimEngine } from '../engine/types.js';
+import type { CornerResult, Results, WaveformExcerpt } from '../report/types.js';
+import { expandCorners, filterCorners } from '../corners/expand.js';
+import { predictCorner } from '../fha/predict.js';
+import { compareCorner } from '../compare/compare.js';
+import { summarize } from '../report/summary.js';
+import { cornerInputs, simulateCorner, type CornerOutcome } from './corner.js';
+import { mapPool } from '../engine/pool.js';
+import { TOOL_VERSION } from '../version.js';
+
+export interface StudyProgress {
+  done: number;
+  failed: number;
+  total: number;
+  id: string;
+  status: CornerResult['status'];
+}
+
+/** Corner-level result cache (content-addressed by the caller's key). */
+export interface CornerCache {
+  key(design: Design, corner: Corner, engineVersion: string): string;
+  get(key: string): Promise<CornerOutcome | undefined>;
+  set(key: string, value: CornerOutcome): Promise<void>;
+}
+
+export interface StudyOptions {
+  engine: SimEngine;
+  /** Corners simulated at once. @default 1 */
+  jobs?: number;
+  /** Glob on corner ids. */
+  only?: string;
+  signal?: AbortSignal;
+  cache?: CornerCache;
+  onProgress?: (p: StudyProgress) => void;
+  timeoutMs?: number;
+}
+
+export interface StudyOutput {
+  results: Results;
+  waveforms: WaveformExcerpt[];
+}
+
+/** FHA-only results (no engine): every corner predicted. */
+export function predictStudy(design: Design, only?: string): Results {
+  const corners = filterCorners(expandCorners(design), only).map((c): CornerResult => {
+    const fha = predictCorner(design, c);
+    return { id: c.id, inputs: cornerInputs(c), fha, sim: null, comparison: [], divergences: [], status: fha.fs === null ? 'unreachable' : 'predicted' };
+  });
+  return { schema: 'tankcheck/results@1', tool: { name: 'tankcheck', version: TOOL_VERSION },
+    design: { name: design.name, file: design.file ?? null }, engine: null, corners, summary: summarize(corners, 0) };
+}
+
+/**
+ * Run every corner of a design: FHA, decks, engine, measurement and the cross-check. A corner
+ * that fails is reported as failed and the others go on; when the signal aborts, finished corners
+ * are kept, the rest stay FHA-only and the results are marked incomplete.
+ */
+export async function runStudy(design: Design, opts: StudyOptions): Promise<StudyOutput> {
+  const corners = filterCorners(expandCorners(design), opts.only);
+  const engineVersion = await opts.engine.version();
+  const outcomes: (CornerOutcome | undefined)[] = new Array(corners.length);
+  let done = 0;
+  let failed = 0;
+  let cacheHits = 0;
+  await mapPool(corners, opts.jobs ?? 1, async (corner, i) => {
+    if (opts.signal?.aborted) return;
+    const fha = predictCorner(design, corner);
+    const key = opts.cache?.key(design, corner, engineVersion);
+    let out = key ? await opts.cache!.get(key) : undefined;
+    if (out) {
+      cacheHits++;
+      out = refreshComparison(design, corner, fha, out);
+    } else {
+      out = await simulateCorner(opts.engine, design, corner, fha, { signal: opts.signal, timeoutMs: opts.timeoutMs })
+        .catch((e: unknown): CornerOutcome => ({ result: { id: corner.id, inputs: cornerInputs(corner), fha, sim: null, comparison: [], divergences: [],
+          status: 'failed', failure: { kind: 'measurement', message: e instanceof Error ? e.message : String(e) } } }));
+      if (opts.signal?.aborted && out.result.status === 'failed') return; // interrupted, not a simulator failure
+      if (key && out.result.failure?.kind !== 'timeout') await opts.cache!.set(key, out);
+    }
+    outcomes[i] = out;
+    done++;
+    if (out.result.status === 'failed') failed++;
+    opts.onProgress?.({ done, failed, total: corners.length, id: corner.id, status: out.result.status });
+  }, opts.signal).catch((e: unknown) => {
+    if (!opts.signal?.aborted) throw e;
+  });
+  const results: CornerResult[] = corners.map((c, i) => outcomes[i]?.result ?? predictedOnly(design, c));
+  const incomplete = outcomes.some((o) => o === undefined);
+  return {
+    results: {
+      schema: 'tankcheck/results@1', tool: { name: 'tankcheck', version: TOOL_VERSION },
+      design: { name: design.name, file: design.file ?? null },
+      engine: { name: opts.engine.name, version: engineVersion },
+      ...(incomplete ? { incomplete: true } : {}),
+      corners: results, summary: summarize(results, cacheHits),
+    },
+    waveforms: outcomes.flatMap((o) => (o?.waveform ? [o.waveform] : [])),
+  };
+}
+
+function predictedOnly(design: Design, c: Corner): CornerResult {
+  const fha = predictCorner(design, c);
+  return { id: c.id, inputs: cornerInputs(c), fha, sim: null, comparison: [], divergences: [], status: 'predicted' };
+}
+
+/** A cached simulation is compared again with the current tolerances (compare: may have changed). */
+function refreshComparison(design: Design, corner: Corner, fha: CornerResult['fha'], out: CornerOutcome): CornerOutcome {
+  const r = out.result;
+  if (!r.sim || r.status === 'failed') return { ...out, result: { ...r, fha, sim: r.sim ? { ...r.sim, fromCache: true } : null } };
+  const cmp = compareCorner(design, fha, r.sim, corner.fs === null);
+  const status = !r.sim.settled ? 'not-settled' : cmp.divergences.length ? 'diverged' : 'ok';
+  return { ...out, result: { ...r, fha, sim: { ...r.sim, fromCache: true }, comparison: cmp.rows, divergences: cmp.divergences, status } };
+}

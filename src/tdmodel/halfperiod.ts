@@ -1,0 +1,166 @@
+import { decideRect, setCircuitClamp, type BridgeKind, type Circuit } from './model.js';
+import { evalState, expand, newPoly, project, scalarAt, scalarIntegral, scalarRoot, scalarSlope, type Poly } from './taylor.js';
+import { accumulate, type HalfStats } from './stats.js';
+import type { RectMode } from './types.js';
+
+/** Bridge state in the first half period: dead-time clamps, free swing, or high side on. */
+export type Bridge = 'clampL' | 'clampH' | 'free' | 'on';
+
+type GuardId = 'secP' | 'secN' | 'oUp' | 'oLow' | 'nodeHigh' | 'nodeLow' | 'exitH' | 'exitL';
+interface Guard { w: number[]; e: number; id: GuardId }
+
+/** Guard values below -TOL_G (normalized units) count as a crossing. */
+const TOL_G = 1e-13;
+const W_SEC = [1, -1, 0, 0];
+const MAX_EVENTS = 400;
+
+/**
+ * Integrates the normalized circuit over the half period [0, T/2) that starts at the low-side
+ * turn-off, from z = (i_r, i_m, v_cr - V_dc) at t = 0 (bridge on the low rail), with exact
+ * event location at every rectifier and bridge transition.
+ */
+export class HalfPeriod {
+  private readonly poly: Poly = newPoly();
+  private readonly g = new Float64Array(80);
+  private readonly x = new Float64Array(4);
+  private readonly guards = new Map<string, Guard[]>();
+
+  constructor(readonly c: Circuit) {}
+
+  /** Integral of |i_sec| over the last run (normalized), for the output current. */
+  absSec = 0;
+
+  /** Changes the output clamp n (Vo + V_drop) / Vin of the circuit. */
+  setClamp(vc: number): void {
+    setCircuitClamp(this.c, vc);
+    this.guards.clear();
+  }
+
+  /** End state (i_r, i_m, v_cr - V_dc) at T/2; fills stats when given. */
+  run(z: ArrayLike<number>, stats: HalfStats | null = null): [number, number, number] {
+    const { c, x, poly } = this;
+    x[0] = z[0]; x[1] = z[1]; x[2] = z[2] + c.vdc; x[3] = c.vl;
+    let t = 0;
+    let bridge: Bridge = 'clampL';
+    if (c.td > 0 && x[0] < 0) {
+      bridge = c.ce > 0 ? 'free' : 'clampH';
+      if (bridge === 'clampH') { x[3] = c.vh; if (stats) stats.zvsTime = 0; }
+    }
+    let rect = decideRect(c, x, kind(bridge));
+    let events = 0;
+    this.absSec = 0;
+    for (;;) {
+      const tEnd = bridge === 'on' ? c.half : c.td;
+      if (t >= tEnd) {
+        if (bridge === 'on') break;
+        if (stats) { stats.vAtGate = x[3]; stats.irAtGate = x[0]; stats.hardDv = c.vh - x[3]; }
+        x[3] = c.vh;
+        bridge = 'on';
+        rect = redecide(c, x, bridge, rect);
+        continue;
+      }
+      const sys = c.modes.get(kind(bridge) + rect)!;
+      const h = Math.min(1 / sys.rho, tEnd - t);
+      expand(sys.a, sys.b, x, h, poly);
+      let tau = h;
+      let hit: GuardId | null = null;
+      for (const gd of this.guardList(bridge, rect)) {
+        project(poly, gd.w, gd.e, this.g);
+        const r = firstCrossing(this.g, poly.order, tau);
+        if (process.env.TDDBG && t === 0) console.log("G", gd.id, r, tau, this.g[0], this.g[1], scalarAt(this.g, poly.order, tau / 4), poly.order);
+        if (r !== null && r < tau) { tau = r; hit = gd.id; }
+      }
+      if (stats) accumulate(stats, poly, tau, t, rect, bridge, this.g);
+      else if (rect !== 'O') {
+        project(poly, W_SEC, 0, this.g);
+        const q = scalarIntegral(this.g, poly.order, tau);
+        this.absSec += rect === 'P' ? q : -q;
+      }
+      evalState(poly, tau, x);
+      t = hit === null && tau === h && h === tEnd - t ? tEnd : t + tau;
+      if (hit === null) continue;
+      if (process.env.TDDBG && events < 12) console.log("EV", hit, t, tau, rect, bridge, Array.from(x));
+      if (++events > MAX_EVENTS) throw new Error('tdmodel: too many events in one half period');
+      switch (hit) {
+        case 'secP': case 'secN': rect = decideRect(c, x, kind(bridge), Infinity); break;
+        case 'oUp': rect = 'P'; break;
+        case 'oLow': rect = 'N'; break;
+        case 'nodeHigh': bridge = 'clampH'; x[3] = c.vh; if (stats && stats.zvsTime === null) stats.zvsTime = t; break;
+        case 'nodeLow': bridge = 'clampL'; x[3] = c.vl; break;
+        case 'exitH': bridge = c.ce > 0 ? 'free' : 'clampL'; if (c.ce === 0) x[3] = c.vl; break;
+        case 'exitL':
+          bridge = c.ce > 0 ? 'free' : 'clampH';
+          if (c.ce === 0) { x[3] = c.vh; if (stats && stats.zvsTime === null) stats.zvsTime = t; }
+          break;
+      }
+      if (hit.startsWith('node') || hit.startsWith('exit')) rect = redecide(c, x, bridge, rect);
+    }
+    if (stats) this.absSec = stats.absSec;
+    return [x[0], x[1], x[2] - c.vdc];
+  }
+
+  private guardList(bridge: Bridge, rect: RectMode): Guard[] {
+    const key = bridge + rect;
+    let list = this.guards.get(key);
+    if (list) return list;
+    const { k, vc } = this.c;
+    const rs = bridge === 'free' ? 0 : this.c.rs;
+    list = [];
+    if (rect === 'P') list.push({ w: [1, -1, 0, 0], e: 0, id: 'secP' });
+    if (rect === 'N') list.push({ w: [-1, 1, 0, 0], e: 0, id: 'secN' });
+    if (rect === 'O') {
+      list.push({ w: [k * rs, 0, k, -k], e: vc, id: 'oUp' });
+      list.push({ w: [-k * rs, 0, -k, k], e: vc, id: 'oLow' });
+    }
+    if (bridge === 'free') {
+      list.push({ w: [0, 0, 0, -1], e: this.c.vh, id: 'nodeHigh' });
+      list.push({ w: [0, 0, 0, 1], e: -this.c.vl, id: 'nodeLow' });
+    }
+    if (bridge === 'clampH') list.push({ w: [-1, 0, 0, 0], e: 0, id: 'exitH' });
+    if (bridge === 'clampL') list.push({ w: [1, 0, 0, 0], e: 0, id: 'exitL' });
+    this.guards.set(key, list);
+    return list;
+  }
+}
+
+function kind(b: Bridge): BridgeKind {
+  return b === 'free' ? 'free' : 'pin';
+}
+
+/** After a bridge change only O can become invalid (its Lm voltage depends on the bridge). */
+function redecide(c: Circuit, x: Float64Array, bridge: Bridge, rect: RectMode): RectMode {
+  return rect === 'O' ? decideRect(c, x, kind(bridge), Infinity) : rect;
+}
+
+/** First time in (0, h] where the guard polynomial goes below zero, or null. */
+function firstCrossing(g: Float64Array, order: number, h: number): number | null {
+  const n = 4;
+  let prevT = 0;
+  let prevV = g[0];
+  for (let s = 1; s <= n; s++) {
+    const ts = (h * s) / n;
+    const v = scalarAt(g, order, ts);
+    if (v < -TOL_G) {
+      if (prevV > 0) return scalarRoot(g, order, prevT, ts);
+      // Starting on the boundary (g(0) ~ 0) but rising first: the crossing follows the maximum.
+      if (s === 1 && scalarSlope(g, order, 0) > 0) {
+        const tm = slopeRoot(g, order, 0, ts);
+        if (scalarAt(g, order, tm) > 0) return scalarRoot(g, order, tm, ts);
+      }
+      return prevT;
+    }
+    prevT = ts;
+    prevV = v;
+  }
+  return null;
+}
+
+/** Stationary point of g in (lo, hi) where the slope goes from positive to non-positive. */
+function slopeRoot(g: Float64Array, order: number, lo: number, hi: number): number {
+  for (let it = 0; it < 100 && hi - lo > 1e-15 * (1 + hi); it++) {
+    const m = 0.5 * (lo + hi);
+    if (scalarSlope(g, order, m) > 0) lo = m;
+    else hi = m;
+  }
+  return 0.5 * (lo + hi);
+}

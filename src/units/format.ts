@@ -1,0 +1,43 @@
+/** Output prefixes from femto to tera; ASCII only (`u` for micro) so reports and terminals stay 7-bit. */
+const OUT_PREFIX: Record<number, string> = {
+  [-15]: 'f', [-12]: 'p', [-9]: 'n', [-6]: 'u', [-3]: 'm', 0: '', 3: 'k', 6: 'M', 9: 'G', 12: 'T',
+};
+
+/**
+ * Format an SI value for people: `formatSi(62e-6, 'H')` -> `"62 uH"`, `formatSi(101234, 'Hz')` ->
+ * `"101.2 kHz"`. `digits` significant digits (default 4), trailing zeros dropped, prefixes f..T.
+ * With an empty unit, mega is written `meg` (`"2.2 meg"`) because a bare `M` would read as milli in
+ * SPICE and is refused by `parseQuantity`; with a unit, `M` is SI mega (`"2 Mohm"`), which
+ * `parseQuantity` reads back the same way. Non-finite values print as `NaN` / `Infinity`.
+ */
+export function formatSi(value: number, unit: string, digits = 4): string {
+  const join = (num: string, prefix: string): string => {
+    const tail = `${prefix}${unit}`;
+    return tail === '' ? num : `${num} ${tail}`;
+  };
+  if (!Number.isFinite(value)) return join(String(value), '');
+  if (value === 0) return join('0', '');
+  const sign = value < 0 ? '-' : '';
+  const abs = Math.abs(value);
+  const d = Math.max(1, Math.min(15, Math.round(digits)));
+  let exp = Math.max(-15, Math.min(12, Math.floor(Math.log10(abs) / 3) * 3));
+  let mant = Number((abs / 10 ** exp).toPrecision(d));
+  // Rounding can carry into the next prefix (999.96 -> 1000 at 4 digits).
+  if (mant >= 1000 && exp < 12) {
+    exp += 3;
+    mant = Number((abs / 10 ** exp).toPrecision(d));
+  }
+  const prefix = exp === 6 && unit === '' ? 'meg' : OUT_PREFIX[exp];
+  return join(`${sign}${mant}`, prefix);
+}
+
+/**
+ * Format a value for a SPICE netlist: plain exponent notation with 13 significant digits
+ * (`value.toExponential(12)`, e.g. `6.000000000000e-5`), no scale suffix and no unit letters,
+ * which sidesteps SPICE's `M` = milli and `F` = femto traps. Throws a RangeError for NaN or
+ * Infinity, which must never reach a netlist.
+ */
+export function formatSpice(value: number): string {
+  if (!Number.isFinite(value)) throw new RangeError(`formatSpice: ${value} cannot be written to a netlist`);
+  return value.toExponential(12);
+}

@@ -1,0 +1,15 @@
+export { parseQuantity, type ParseResult } from './parse.js';
+export { parseLoad } from './parseLoad.js';
+export { formatSi, formatSpice } from './format.js';
+export {
+  KIND_EXAMPLE,
+  KIND_NOUN,
+  PREFIXES,
+  UNIT_SPELLINGS,
+  UNIT_SYMBOL,
+  loadPattern,
+  quantityPattern,
+  type PhysicalKind,
+  type Prefix,
+  type UnitKind,
+} from './table.js';

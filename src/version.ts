@@ -1,0 +1,2 @@
+/** Tool version written into results files (kept in step with package.json by a test). */
+export const TOOL_VERSION = '0.1.0';
