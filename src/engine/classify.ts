@@ -20,6 +20,7 @@ export interface RunOutcome {
   timeoutMs?: number;
 }
 
+/** The verdict on one run: a failure (absent when the run is usable) and the cleaned messages. */
 export interface Classification {
   failure?: SimFailure;
   diagnostics: Diagnostic[];

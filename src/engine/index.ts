@@ -20,6 +20,7 @@ export {
   type RetryRung,
 } from './retry.js';
 
+/** Engine names as the CLI spells them. */
 export type EngineName = 'wasm' | 'ngspice';
 
 /** Options for createEngine; each engine reads only its own fields. */

@@ -9,6 +9,7 @@ describe('checkJob', () => {
   it('rejects non-ASCII text (the wasm engine hangs on it) and escaping include paths', () => {
     expect(checkJob({ id: 'a', deck: 't\nL1 a 0 50\u00b5H\n.end\n', timeoutMs: 1 })).toBe('deck is not 7-bit ASCII');
     expect(checkJob({ id: 'a', deck: 't\n.end\n', includes: { 'm.lib': '\u03a9' }, timeoutMs: 1 })).toMatch(/ASCII/);
+    expect(checkJob({ id: 'a', deck: 't\n.end\n', includes: { 'Deck.cir': '*' }, timeoutMs: 1 })).toMatch(/reserved/);
     for (const p of ['../x.lib', '/etc/passwd', 'a/../../b', 'a\\b', 'C:x', '', 'a//b']) expect(isSafeIncludePath(p)).toBe(false);
   });
 });

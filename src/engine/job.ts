@@ -2,6 +2,8 @@
 import type { SimJob } from './types.js';
 
 const ASCII = /^[\x00-\x7f]*$/;
+/** Files the engines write next to the includes (native job dir; wasm MEMFS root). */
+const RESERVED = new Set(['deck.cir', 'out.raw', 'test.cir', 'spinit']);
 
 /** True when `path` is a safe relative include path: no '..', not absolute, no backslash or NUL. */
 export function isSafeIncludePath(path: string): boolean {
@@ -17,6 +19,7 @@ export function checkJob(job: SimJob): string | undefined {
   if (!ASCII.test(job.deck)) return 'deck is not 7-bit ASCII';
   for (const [path, text] of Object.entries(job.includes ?? {})) {
     if (!isSafeIncludePath(path)) return `include path ${JSON.stringify(path)} must be relative without '..'`;
+    if (RESERVED.has(path.toLowerCase())) return `include path ${JSON.stringify(path)} is reserved for the engine's own files`;
     if (!ASCII.test(text)) return `deck is not 7-bit ASCII (include ${path})`;
   }
   return undefined;

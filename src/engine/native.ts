@@ -12,6 +12,7 @@ import { checkJob, timeLimitMs } from './job.js';
 import { assembleResult, failedResult } from './result.js';
 import type { SimEngine, SimJob, SimResult } from './types.js';
 
+/** Options of the system-ngspice engine. */
 export interface NgspiceEngineOptions {
   /** Executable name or path. @default 'ngspice' */
   path?: string;

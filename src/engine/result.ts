@@ -30,6 +30,7 @@ export function plotVectors(plot: RawPlot): Record<string, Float64Array> {
   return out;
 }
 
+/** What an adapter hands to assembleResult. */
 export interface AssembleInput {
   id: string;
   /** Raw-file bytes; undefined when no file was written. */

@@ -81,7 +81,7 @@ async function run(msg) {
       FS.writeFile(abs, text);
       written.push(abs);
     }
-    // FS.writeFile('/out.raw', PLACEHOLDER);
+    FS.writeFile('/out.raw', PLACEHOLDER);
     // ngspice lowercases the title; the nonce is lowercase ASCII so it survives unchanged.
     const nonce = `tankcheck-${threadId}-${++counter}-${randomBytes(6).toString('hex')}`;
     const deckLines = msg.deck.split('\n');

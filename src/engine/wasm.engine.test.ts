@@ -108,7 +108,7 @@ describe('wasm engine on a fresh worker', () => {
     try {
       await fresh.version();
       const t0 = performance.now();
-      const r = await fresh.run({ id: 'op', deck: deckFile('op-fail.cir'), timeoutMs: 30_000 });
+      const r = await fresh.run({ id: 'op', deck: deckFile('op-fail.cir'), timeoutMs: 15_000 });
       expect(performance.now() - t0).toBeLessThan(10_000);
       expect(r.failure).toMatchObject({ kind: 'convergence', atTime: 0 });
     } finally {

@@ -13,6 +13,7 @@ import { finishRun, type DoneMessage, type FatalMessage } from './wasm-protocol.
 
 const failed = (job: SimJob, failure: SimFailure, t0: number) => failedResult(job.id, failure, performance.now() - t0);
 
+/** Options of the wasm engine. */
 export interface WasmEngineOptions {
   /** Number of worker threads (each ~0.4-0.5 GB RSS). @default 1 */
   workers?: number;

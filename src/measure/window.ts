@@ -57,7 +57,9 @@ export function valueAt(y: Float64Array, p: GridPoint): number {
 export function makeSpan(t: Float64Array, t0: number, t1: number): Span {
   if (t.length < 2) throw new Error(`measure: need at least 2 time points, got ${t.length}`);
   if (!(t1 > t0)) throw new Error(`measure: empty window [${t0}, ${t1}] s`);
-  const slack = 1e-9 * (t1 - t0);
+  // ngspice writes a run's first point a tiny step after tstart (and after 0 with UIC): accept a
+  // gap of up to 1e-4 of the window at either end and clamp to the data.
+  const slack = 1e-4 * (t1 - t0);
   const first = t[0];
   const last = t[t.length - 1];
   if (t0 < first - slack || t1 > last + slack) {

@@ -6,7 +6,8 @@ import type { SimMetrics, Waveforms } from '../measure/types.js';
 import { buildDeck, STEP_PROFILES } from '../netlist/deck.js';
 import { runWithRetries, addRshunt, switchIntegrationMethod, type RetryRung } from '../engine/retry.js';
 import { finalState, toWaveforms } from '../netlist/waveforms.js';
-import { makeSpan, measure, spanAverage, valueAt, locate } from '../measure/index.js';
+import { makeSpan, measure, spanAverage } from '../measure/index.js';
+import { predictCorner } from '../fha/predict.js';
 
 /**
  * Retry ladder for convergence failures (they fail within milliseconds, so retrying is cheap):
@@ -50,20 +51,33 @@ export interface SteadyResult {
 }
 
 /**
- * Settling error of one run with two windows: |avg2 - avg1| / avg2, and the drift that the output
- * capacitor's charge balance shows over the last window, Co dVco/dt / Io. For a first-order drift
- * towards steady state the remaining error is at most the latter (the output time constant cannot
- * exceed RL Co), so a slow exponential cannot pass as settled just because two windows look alike.
+ * Time constant of the slow output mode, s: Co (RL || Rth), where Rth = -dVo/dIo is the
+ * converter's output resistance at this frequency from FHA (twice that, as FHA may err), capped
+ * at RL Co. It turns a measured output slope into the error that is left to settle.
  */
-export function settleError(w: Waveforms, vco: Float64Array, t0: number, period: number, cycles: number, co: number, load: number): number {
+export function outputTimeConstant(design: Design, corner: Corner, fs: number): number {
+  const rl = corner.load;
+  const vo = (r: number) => predictCorner(design, { ...corner, fs, load: r }).vout ?? 0;
+  const v1 = vo(rl);
+  const v2 = vo(rl * 1.01);
+  const rth = Math.max(0, (2 * -(v2 - v1)) / (v2 / (rl * 1.01) - v1 / rl));
+  const par = Number.isFinite(rth) ? (rth * rl) / (rth + rl || 1) : rl;
+  return design.output.capacitance * Math.min(Math.max(par, 0), rl);
+}
+
+/**
+ * Settling error of one run with two windows of whole cycles: the larger of the change between the
+ * window averages, |a2 - a1| / a2, and the error still to come if the output keeps moving at that
+ * rate for one output time constant, |a2 - a1| / (window length) * tau / a2. The second term keeps a
+ * slow first-order drift from passing as settled just because two short windows look alike.
+ */
+export function settleError(w: Waveforms, t0: number, period: number, cycles: number, tau: number): number {
   const t1 = t0 + cycles * period;
   const t2 = t1 + cycles * period;
-  // ngspice starts a UIC run's data one tiny step after 0: clamp the first window to the data.
-  const a1 = spanAverage(makeSpan(w.t, Math.max(t0, w.t[0]!), t1), w.vout);
+  const a1 = spanAverage(makeSpan(w.t, t0, t1), w.vout);
   const a2 = spanAverage(makeSpan(w.t, t1, t2), w.vout);
-  const dv = valueAt(vco, locate(w.t, t2)) - valueAt(vco, locate(w.t, t1));
-  const drift = (co * dv) / (t2 - t1) / (a2 / load);
-  return Math.max(Math.abs(a2 - a1) / Math.abs(a2), Math.abs(drift));
+  const change = Math.abs(a2 - a1) / Math.abs(a2);
+  return Math.max(change, (change * tau) / (t2 - t1));
 }
 
 /**
@@ -78,6 +92,7 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
   const profile = opts.profile ?? STEP_PROFILES[design.simulation.accuracy];
   const attempts: Attempt[] = [];
   let state = seed;
+  const tau = outputTimeConstant(design, corner, fs);
   let cycles = 0;
   let runs = 0;
   let last: Omit<SteadyResult, 'cycles' | 'runs' | 'attempts' | 'fs'> | undefined;
@@ -93,7 +108,7 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
       return { fs, ok: false, failure: { ...res.failure!, detail }, settled: false, settleError: NaN, cycles, runs, windowStart: 0, attempts };
     }
     const w = toWaveforms(design, corner, fs, res.vectors);
-    const err = settleError(w, res.vectors['v(co)']!, deck.tstart, period, K, design.output.capacitance, corner.load);
+    const err = settleError(w, deck.tstart, period, K, tau);
     state = finalState(w, res.vectors);
     last = { ok: true, settled: err <= opts.tolerance, settleError: err, waveforms: w, windowStart: deck.tstart + K * period, state };
     if (last.settled) break;

@@ -7,7 +7,7 @@ import type { FrequencyResult, SteadyStateResult, TdParams } from './types.js';
 export interface FrequencyOptions {
   /** Highest frequency tried, Hz. @default min(20 fr, 0.45 / deadTime) */
   fsMax?: number;
-  /** Lowest frequency tried, Hz. @default 0.05 fr */
+  /** Lowest frequency tried, Hz; below fp the search would meet sub-harmonic resonances. @default fp = 1 / (2 pi sqrt((Lr + Lm) Cr)) */
   fsMin?: number;
   /** Relative tolerance on fs. @default 1e-9 */
   tolerance?: number;
@@ -24,7 +24,7 @@ export function solveFrequency(p: TdParams, rl: number, voTarget: number, fsGues
   checkParams(p, voTarget);
   const fr = 1 / (2 * Math.PI * Math.sqrt(p.lr * p.cr));
   const fsMax = Math.min(opts.fsMax ?? 20 * fr, p.deadTime > 0 ? 0.45 / p.deadTime : Infinity);
-  const fsMin = opts.fsMin ?? 0.05 * fr;
+  const fsMin = opts.fsMin ?? 1 / (2 * Math.PI * Math.sqrt((p.lr + p.lm) * p.cr));
   let evaluations = 0;
   let last: SteadyStateResult | undefined;
   const cache = new Map<number, SteadyStateResult | null>();
@@ -44,15 +44,18 @@ export function solveFrequency(p: TdParams, rl: number, voTarget: number, fsGues
   const inductive = (r: SteadyStateResult | null) => r !== null && r.turnOffCurrent > 0;
   const fail = (reason: string): FrequencyResult => ({ fs: null, reason, evaluations });
 
-  let f0 = Math.min(Math.max(fsGuess, fsMin), fsMax);
-  let r0 = at(f0);
+  // Onto the falling inductive branch: inductive at f0 and a lower output at 1.02 f0.
+  let f0 = Math.min(Math.max(fsGuess, fsMin), fsMax / 1.02);
   let factor = 1.05;
-  while (!inductive(r0)) {
+  for (;;) {
+    const r = at(f0);
+    const up = inductive(r) ? at(f0 * 1.02) : null;
+    if (r && up && up.vo < r.vo) break;
     f0 *= factor;
     factor = Math.min(1.5, factor * 1.3);
-    if (f0 > fsMax) return fail(`no inductive operating point between ${fmt(fsGuess)} and ${fmt(fsMax)} Hz`);
-    r0 = at(f0);
+    if (f0 * 1.02 > fsMax) return fail(`no inductive operating point with the output falling with fs between ${fmt(fsGuess)} and ${fmt(fsMax)} Hz`);
   }
+  const r0 = at(f0);
   let lo = f0; // higher output side
   let hi = f0;
   let rLo = r0!;

@@ -1,5 +1,6 @@
 import { decideRect, setCircuitClamp, type BridgeKind, type Circuit } from './model.js';
-import { evalState, expand, newPoly, project, scalarAt, scalarIntegral, scalarRoot, scalarSlope, type Poly } from './taylor.js';
+import { evalState, expand, newPoly, project, scalarIntegral, type Poly } from './taylor.js';
+import { firstCrossing } from './crossing.js';
 import { accumulate, type HalfStats } from './stats.js';
 import type { RectMode } from './types.js';
 
@@ -9,10 +10,9 @@ export type Bridge = 'clampL' | 'clampH' | 'free' | 'on';
 type GuardId = 'secP' | 'secN' | 'oUp' | 'oLow' | 'nodeHigh' | 'nodeLow' | 'exitH' | 'exitL';
 interface Guard { w: number[]; e: number; id: GuardId }
 
-/** Guard values below -TOL_G (normalized units) count as a crossing. */
-const TOL_G = 1e-13;
 const W_SEC = [1, -1, 0, 0];
 const MAX_EVENTS = 400;
+const RECT_GUARDS = new Set<GuardId>(['secP', 'secN', 'oUp', 'oLow']);
 
 /**
  * Integrates the normalized circuit over the half period [0, T/2) that starts at the low-side
@@ -48,6 +48,7 @@ export class HalfPeriod {
     }
     let rect = decideRect(c, x, kind(bridge));
     let events = 0;
+    let zeroRun = 0; // rectifier events in a row without progress: a tangency (grazing) point
     this.absSec = 0;
     for (;;) {
       const tEnd = bridge === 'on' ? c.half : c.td;
@@ -66,8 +67,7 @@ export class HalfPeriod {
       let hit: GuardId | null = null;
       for (const gd of this.guardList(bridge, rect)) {
         project(poly, gd.w, gd.e, this.g);
-        const r = firstCrossing(this.g, poly.order, tau);
-        if (process.env.TDDBG && t === 0) console.log("G", gd.id, r, tau, this.g[0], this.g[1], scalarAt(this.g, poly.order, tau / 4), poly.order);
+        const r = firstCrossing(this.g, poly.order, tau, zeroRun >= 2);
         if (r !== null && r < tau) { tau = r; hit = gd.id; }
       }
       if (stats) accumulate(stats, poly, tau, t, rect, bridge, this.g);
@@ -78,9 +78,17 @@ export class HalfPeriod {
       }
       evalState(poly, tau, x);
       t = hit === null && tau === h && h === tEnd - t ? tEnd : t + tau;
-      if (hit === null) continue;
-      if (process.env.TDDBG && events < 12) console.log("EV", hit, t, tau, rect, bridge, Array.from(x));
+      if (hit === null) {
+        zeroRun = 0;
+        continue;
+      }
       if (++events > MAX_EVENTS) throw new Error('tdmodel: too many events in one half period');
+      zeroRun = tau === 0 && RECT_GUARDS.has(hit) ? zeroRun + 1 : 0;
+      if (zeroRun >= 2) {
+        // P and O each exit at once: the Lm voltage only touches the clamp. Stay off (O).
+        rect = decideRect(c, x, kind(bridge), Infinity, true);
+        continue;
+      }
       switch (hit) {
         case 'secP': case 'secN': rect = decideRect(c, x, kind(bridge), Infinity); break;
         case 'oUp': rect = 'P'; break;
@@ -130,37 +138,4 @@ function kind(b: Bridge): BridgeKind {
 /** After a bridge change only O can become invalid (its Lm voltage depends on the bridge). */
 function redecide(c: Circuit, x: Float64Array, bridge: Bridge, rect: RectMode): RectMode {
   return rect === 'O' ? decideRect(c, x, kind(bridge), Infinity) : rect;
-}
-
-/** First time in (0, h] where the guard polynomial goes below zero, or null. */
-function firstCrossing(g: Float64Array, order: number, h: number): number | null {
-  const n = 4;
-  let prevT = 0;
-  let prevV = g[0];
-  for (let s = 1; s <= n; s++) {
-    const ts = (h * s) / n;
-    const v = scalarAt(g, order, ts);
-    if (v < -TOL_G) {
-      if (prevV > 0) return scalarRoot(g, order, prevT, ts);
-      // Starting on the boundary (g(0) ~ 0) but rising first: the crossing follows the maximum.
-      if (s === 1 && scalarSlope(g, order, 0) > 0) {
-        const tm = slopeRoot(g, order, 0, ts);
-        if (scalarAt(g, order, tm) > 0) return scalarRoot(g, order, tm, ts);
-      }
-      return prevT;
-    }
-    prevT = ts;
-    prevV = v;
-  }
-  return null;
-}
-
-/** Stationary point of g in (lo, hi) where the slope goes from positive to non-positive. */
-function slopeRoot(g: Float64Array, order: number, lo: number, hi: number): number {
-  for (let it = 0; it < 100 && hi - lo > 1e-15 * (1 + hi); it++) {
-    const m = 0.5 * (lo + hi);
-    if (scalarSlope(g, order, m) > 0) lo = m;
-    else hi = m;
-  }
-  return 0.5 * (lo + hi);
 }

@@ -128,13 +128,13 @@ export function vmOpen(c: Circuit, x: ArrayLike<number>, bk: BridgeKind): number
  * Rectifier state consistent with x: sign of i_sec if clearly non-zero, else the O interval
  * unless its Lm voltage would exceed the clamp (then the rectifier starts conducting).
  */
-export function decideRect(c: Circuit, x: Float64Array, bk: BridgeKind, eps = 1e-13): RectMode {
+export function decideRect(c: Circuit, x: Float64Array, bk: BridgeKind, eps = 1e-13, forceOff = false): RectMode {
   const isec = x[0] - x[1];
   if (isec > eps) return 'P';
   if (isec < -eps) return 'N';
   const vm = vmOpen(c, x, bk);
-  if (vm > c.vc) return 'P';
-  if (vm < -c.vc) return 'N';
+  if (vm > c.vc && !forceOff) return 'P';
+  if (vm < -c.vc && !forceOff) return 'N';
   const mid = 0.5 * (x[0] + x[1]);
   x[0] = mid;
   x[1] = mid;

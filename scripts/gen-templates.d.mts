@@ -1,0 +1,2 @@
+/** Text of src/netlist/templateText.ts generated from templates/*.cir. */
+export function generate(): string;

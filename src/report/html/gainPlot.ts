@@ -1,0 +1,107 @@
+/** The gain-against-switching-frequency section: one SVG panel per input voltage. Pure. */
+import type { Design } from '../../design/types.js';
+import type { Results } from '../types.js';
+import { esc, rowAnchor } from './escape.js';
+import { num, pct } from './format.js';
+import { type GainFigureData, type GainPanel, type GainPoint, gainFigureData } from './gainData.js';
+import { seriesColour, seriesDash } from './palette.js';
+import { frame, linearScale, linePath, niceStep, px, type Scale, ticksIn } from './svg.js';
+
+const W = 420;
+const H = 300;
+const M = { l: 48, r: 50, t: 26, b: 40 };
+
+const kHz = (v: number) => num(v, 4, 1e3);
+
+function pointGroup(p: GainPoint, sx: Scale, sy: Scale): string {
+  const c = seriesColour(Math.max(p.load, 0));
+  const parts: string[] = [];
+  if (p.fha && p.sim) parts.push(`<path class="gap" d="M${px(sx(p.fha.fs))} ${px(sy(p.fha.gain))}L${px(sx(p.sim.fs))} ${px(sy(p.sim.gain))}"/>`);
+  if (p.fha) parts.push(`<circle class="pt-fha" cx="${px(sx(p.fha.fs))}" cy="${px(sy(p.fha.gain))}" r="4" stroke="${c}"/>`);
+  if (p.sim) {
+    const x = sx(p.sim.fs);
+    const y = sy(p.sim.gain);
+    parts.push(`<path class="pt-sim" d="M${px(x)} ${px(y - 4.5)}l4.5 4.5-4.5 4.5-4.5-4.5z" fill="${c}"/>`);
+  }
+  const fha = p.fha ? `FHA ${kHz(p.fha.fs)} kHz, M ${num(p.fha.gain)}` : 'FHA: no operating point';
+  const sim = p.sim ? `sim ${kHz(p.sim.fs)} kHz, M ${num(p.sim.gain)}` : 'sim: none';
+  const gap = p.fha && p.sim ? ` (fs ${pct((p.sim.fs - p.fha.fs) / p.fha.fs)}, M ${pct((p.sim.gain - p.fha.gain) / p.fha.gain)})` : '';
+  return `<a href="#${rowAnchor(p.id)}" class="op"><title>${esc(`${p.id}: ${fha}; ${sim}${gap}`)}</title>${parts.join('')}</a>`;
+}
+
+/** Capacitive region: left of fp, and below the zero-phase locus down to fr (method reference 2.6). */
+function capacitiveRegion(d: GainFigureData, sx: Scale, sy: Scale, h: number): string {
+  if (!d.boundary || d.fr === null) return '';
+  const b = linePath(d.boundary.fs, d.boundary.gain, sx, sy).replace(/^M/, 'L');
+  return `<path class="capacitive" d="M${px(sx(d.fsAxis.d0))} -5000${b}L${px(sx(d.fr))} ${px(sy(1))}L${px(sx(d.fr))} ${h + 5}L${px(sx(d.fsAxis.d0))} ${h + 5}Z"/>`
+    + `<text class="region" x="6" y="${h - 6}">capacitive: ZVS lost</text>`;
+}
+
+function vline(x: number, h: number, label: string): string {
+  return `<path class="marker" d="M${px(x)} 0v${h}"/><text class="marker" x="${px(x + 3)}" y="11">${esc(label)}</text>`;
+}
+
+function panelSvg(d: GainFigureData, p: GainPanel): string {
+  const w = W - M.l - M.r;
+  const h = H - M.t - M.b;
+  const sx = linearScale(d.fsAxis.d0, d.fsAxis.d1, 0, w);
+  const sy = linearScale(d.gainAxis.d0, d.gainAxis.d1, h, 0);
+  const inner: string[] = [capacitiveRegion(d, sx, sy, h)];
+  for (const c of p.curves) {
+    if (!c.band) continue;
+    const upper = linePath(d.grid, c.band.hi, sx, sy);
+    const lower = linePath([...d.grid].reverse(), [...c.band.lo].reverse(), sx, sy).replace(/^M/, 'L');
+    inner.push(`<path class="band" d="${upper}${lower}Z" fill="${seriesColour(c.load)}"/>`);
+  }
+  if (d.boundary) inner.push(`<path class="boundary" d="${linePath(d.boundary.fs, d.boundary.gain, sx, sy)}"/>`);
+  if (d.fr !== null) inner.push(vline(sx(d.fr), h, 'fr'));
+  if (d.fp !== null && d.fp > d.fsAxis.d0) inner.push(vline(sx(d.fp), h, 'fp'));
+  if (p.target !== null) {
+    inner.push(`<path class="target" d="M0 ${px(sy(p.target))}h${w}"/><text class="marker" x="${w - 4}" y="${px(sy(p.target) + 12)}" text-anchor="end">gain for Vout set point</text>`);
+  }
+  for (const c of p.curves) {
+    const dash = seriesDash(c.load);
+    inner.push(`<path class="curve" data-series="${esc(d.loads[c.load]!.label)}" d="${linePath(d.grid, c.gain, sx, sy)}" stroke="${seriesColour(c.load)}"${dash ? ` stroke-dasharray="${dash}"` : ''}/>`);
+    const last = c.gain[c.gain.length - 1];
+    if (last !== null && last !== undefined && last > d.gainAxis.d0 && last < d.gainAxis.d1) {
+      inner.push(`<text class="curve-label" x="${w - 3}" y="${px(sy(last) - 4)}" text-anchor="end" fill="${seriesColour(c.load)}">${esc(d.loads[c.load]!.label)}</text>`);
+    }
+  }
+  inner.push(...p.points.map((pt) => pointGroup(pt, sx, sy)));
+  const y2 = p.vout ? voutTicks(p.vout, d.gainAxis.d0, d.gainAxis.d1) : undefined;
+  const fr = frame({
+    x: M.l, y: M.t, w, h,
+    xAxis: { scale: sx, ticks: d.fsAxis.ticks, format: kHz, label: 'switching frequency fs, kHz' },
+    yAxis: { scale: sy, ticks: d.gainAxis.ticks, format: (v) => num(v, 3), label: 'tank gain M' },
+    ...(y2 ? { y2: { ticks: y2, label: 'Vout, V (at this Vin)' } } : {}),
+  });
+  const title = `Vin ${num(p.vin)} V`;
+  return `<svg class="plot gain" data-plot="gain" data-series="${p.curves.length}" data-points="${p.points.length}" viewBox="0 0 ${W} ${H}" role="img" aria-label="${esc(`Gain against switching frequency at ${title}`)}">`
+    + `<text class="title" x="${M.l}" y="16">${esc(title)}</text>${fr}`
+    + `<svg x="${M.l}" y="${M.t}" width="${w}" height="${h}">${inner.join('')}</svg></svg>`;
+}
+
+/** Output-voltage ticks placed at the gains that give them: Vout = M perGain - drop (FHA, exact at this Vin). */
+function voutTicks(v: { perGain: number; drop: number }, g0: number, g1: number): { at: number; text: string }[] {
+  const lo = g0 * v.perGain - v.drop;
+  const hi = g1 * v.perGain - v.drop;
+  return ticksIn(lo, hi, niceStep(lo, hi, 5)).map((vo) => ({ at: (vo + v.drop) / v.perGain, text: num(vo, 4) }));
+}
+
+function legend(d: GainFigureData): string {
+  const sw = (i: number) => `<svg class="sw" viewBox="0 0 28 10" aria-hidden="true"><path d="M1 5h26" stroke="${seriesColour(i)}"${seriesDash(i) ? ` stroke-dasharray="${seriesDash(i)}"` : ''}/></svg>`;
+  const loads = d.loads.map((l, i) => `<span>${sw(i)}load ${esc(l.label)}</span>`).join('');
+  return `<p class="legend">${loads}<span><svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><circle cx="6" cy="6" r="4" class="pt-fha" stroke="#333"/></svg>FHA operating point</span>`
+    + `<span><svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><path d="M6 1.5l4.5 4.5-4.5 4.5-4.5-4.5z" fill="#333"/></svg>simulated operating point (thin line: the gap to FHA)</span>`
+    + (d.hasDesign ? '<span><svg class="sw" viewBox="0 0 28 10" aria-hidden="true"><path class="boundary" d="M1 5h26"/></svg>zero-phase boundary</span>' : '') + '</p>';
+}
+
+/** The whole section body: caption, panels and legend. */
+export function renderGainSection(results: Results, design?: Design): string {
+  const d = gainFigureData(results, design);
+  if (d.panels.length === 0) return '<p>No corners to plot.</p>';
+  const note = d.hasDesign
+    ? '<p class="caption">Tank gain M = n (Vout + V<sub>F</sub>) / V<sub>in,eff</sub> against switching frequency, one panel per input voltage. Curves: open-loop FHA gain for each load with the nominal tank, Q from R<sub>ac</sub> at the output voltage FHA gives there (rectifier drop included); shaded bands: spread over the tank tolerance sets. Grey area: capacitive tank input (below the zero-phase boundary, or below fp), where ZVS is lost. Each point links to its table row; hover for values.</p>'
+    : '<p class="caption notice">The design file was not available, so this figure shows only the FHA and simulated operating points (and fr from the results): the FHA gain curves and the zero-phase boundary need the design. Re-run the report with the design file to draw them.</p>';
+  return `${note}<div class="panels">${d.panels.map((p) => panelSvg(d, p)).join('')}</div>${legend(d)}`;
+}
