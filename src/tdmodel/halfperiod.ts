@@ -70,7 +70,7 @@ export class HalfPeriod {
         const r = firstCrossing(this.g, poly.order, tau, zeroRun >= 2);
         if (r !== null && r < tau) { tau = r; hit = gd.id; }
       }
-      if (stats) accumulate(stats, poly, tau, t, rect, bridge, this.g);
+      if (stats) accumulate(stats, poly, tau, t, rect, bridge, this.g, this.openVm(bridge));
       else if (rect !== 'O') {
         project(poly, W_SEC, 0, this.g);
         const q = scalarIntegral(this.g, poly.order, tau);
@@ -105,6 +105,12 @@ export class HalfPeriod {
     }
     if (stats) this.absSec = stats.absSec;
     return [x[0], x[1], x[2] - c.vdc];
+  }
+
+  /** Functional w with w . x = Lm voltage of an O interval, k (v_b - R i_r - v_cr). */
+  private openVm(bridge: Bridge): number[] {
+    const { k } = this.c;
+    return [-k * (bridge === 'free' ? 0 : this.c.rs), 0, -k, k];
   }
 
   private guardList(bridge: Bridge, rect: RectMode): Guard[] {

@@ -60,6 +60,7 @@ export function buildResult(
     diodeCurrentPeak: p.n * i * secPeak,
     diodeCurrentRms: diodeRms,
     diodeCurrentAvg: ioRect / 2,
+    lmVoltagePeakOpen: v * Math.max(st.vmMax, -st.vmMin, 0),
     outputRippleCurrentRms: Math.sqrt(Math.max(0, 2 * diodeRms * diodeRms - ioRect * ioRect)),
     zvs: c.ce === 0 && c.td === 0 ? z[0] <= 0 : !hard,
     bridgeVoltageAtGate: st.vAtGate * v,

@@ -17,6 +17,8 @@ export interface HalfStats {
   imMin: number; imMax: number;
   vcrMin: number; vcrMax: number;
   secMin: number; secMax: number;
+  /** Extremes of the Lm voltage during O intervals (the peak a no-load output charges to). */
+  vmMin: number; vmMax: number;
   /** Bridge voltage and tank current at the high-side gate edge; jump forced there. */
   vAtGate: number;
   irAtGate: number;
@@ -30,7 +32,7 @@ export function newStats(): HalfStats {
   return {
     absSec: 0, sec2: 0, ir2: 0, pinIr2: 0, qH: 0, qL: 0,
     irMin: Infinity, irMax: -Infinity, imMin: Infinity, imMax: -Infinity,
-    vcrMin: Infinity, vcrMax: -Infinity, secMin: Infinity, secMax: -Infinity,
+    vcrMin: Infinity, vcrMax: -Infinity, secMin: Infinity, secMax: -Infinity, vmMin: Infinity, vmMax: -Infinity,
     vAtGate: NaN, irAtGate: NaN, hardDv: 0, zvsTime: null, segments: [],
   };
 }
@@ -40,8 +42,13 @@ const W_IM = [0, 1, 0, 0];
 const W_VCR = [0, 0, 1, 0];
 const W_SEC = [1, -1, 0, 0];
 
-/** Adds the step [t, t + tau] of polynomial p (state as in HalfPeriod) to s; g is scratch. */
-export function accumulate(s: HalfStats, p: Poly, tau: number, t: number, rect: RectMode, bridge: Bridge, g: Float64Array): void {
+/**
+ * Adds the step [t, t + tau] of polynomial p (state as in HalfPeriod) to s; g is scratch;
+ * wOpen the functional of the O-interval Lm voltage for the present bridge state.
+ */
+export function accumulate(
+  s: HalfStats, p: Poly, tau: number, t: number, rect: RectMode, bridge: Bridge, g: Float64Array, wOpen: number[],
+): void {
   const k = p.order;
   project(p, W_IR, 0, g);
   const ir2 = scalarSquareIntegral(g, k, tau);
@@ -59,7 +66,11 @@ export function accumulate(s: HalfStats, p: Poly, tau: number, t: number, rect: 
   project(p, W_VCR, 0, g);
   [lo, hi] = scalarRange(g, k, tau);
   s.vcrMin = Math.min(s.vcrMin, lo); s.vcrMax = Math.max(s.vcrMax, hi);
-  if (rect !== 'O') {
+  if (rect === 'O') {
+    project(p, wOpen, 0, g);
+    [lo, hi] = scalarRange(g, k, tau);
+    s.vmMin = Math.min(s.vmMin, lo); s.vmMax = Math.max(s.vmMax, hi);
+  } else {
     project(p, W_SEC, 0, g);
     const q = scalarIntegral(g, k, tau);
     s.absSec += rect === 'P' ? q : -q;

@@ -101,6 +101,8 @@ export interface HeldOutputResult {
   diodeCurrentPeak: number;
   diodeCurrentRms: number;
   diodeCurrentAvg: number;
+  /** Largest |Lm voltage| during rectifier-off (O) intervals, V; 0 without O. A no-load output charges to it / n - V_drop. */
+  lmVoltagePeakOpen: number;
   /** RMS of rectified current minus its average (output capacitor ripple), A. */
   outputRippleCurrentRms: number;
   /** Node reached the rail before the gate edge (with no node capacitance and no dead time: i_r(0) <= 0). */

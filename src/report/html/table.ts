@@ -55,7 +55,7 @@ function triple(c: CornerResult, m: MetricColumn): string {
   const tip = flagged ? ` title="${esc(`${r!.reason ?? 'beyond tolerance'}${r!.tolerance !== null ? ` (tolerance ${num(r!.tolerance * 100, 3)} %)` : ''}`)}"` : '';
   const abs = r && finite(r.error) !== null ? ` data-s="${Math.abs(r.error!)}"` : '';
   const errCell = flagged
-    ? `<td class="err flag"${abs}${tip}>${esc(err || 'none')}${FLAG}${r!.unexpectedSign ? ODD : ''}</td>`
+    ? `<td class="err flag"${abs}${tip}>${esc(err || 'n/a')}${FLAG}${r!.unexpectedSign ? ODD : ''}</td>`
     : `<td class="err${r?.verdict === 'info' ? ' info' : ''}"${abs}>${esc(err)}</td>`;
   return `<td class="grp">${esc(num(f, m.digits, m.scale))}</td><td>${esc(num(s, m.digits, m.scale))}</td>${errCell}`;
 }

@@ -1,0 +1,28 @@
+/** tankcheck library API: re-exports only. */
+export type { Design, LoadSpec, Inverter, Rectifier, Accuracy } from './design/types.js';
+export { parseDesign, loadDesign, loadDesignOrThrow, DesignError, formatProblem, designJsonSchema, type Problem } from './design/index.js';
+export { parseQuantity, formatSi, formatSpice } from './units/index.js';
+export type { Corner } from './corners/types.js';
+export { expandCorners, filterCorners, loadResistance } from './corners/expand.js';
+export type { FhaResult } from './fha/types.js';
+export { fhaGain, inputImpedance, inputPhase, zeroPhaseFn, peakGainFn, fnForGain } from './fha/gain.js';
+export { predictCorner, tankConstants, acResistance, bridgeFactor, rectifierDrop } from './fha/predict.js';
+export { buildDeck, savedVectors, STEP_PROFILES, type Deck, type DeckRequest } from './netlist/deck.js';
+export { fhaSeed } from './netlist/seed.js';
+export { toWaveforms, finalState } from './netlist/waveforms.js';
+export type { DeckSeed } from './netlist/types.js';
+export * from './engine/index.js';
+export { measure } from './measure/index.js';
+export type { Waveforms, SimMetrics, MeasureWindow } from './measure/types.js';
+export { compareCorner } from './compare/compare.js';
+export { compareBaseline } from './compare/baseline.js';
+export type * from './report/types.js';
+export { renderResultsJson, renderWaveformsJson } from './report/json.js';
+export { renderResultsCsv } from './report/csv.js';
+export { renderJunit } from './report/junit.js';
+export { renderRunTable, renderFhaTable, renderSummary } from './report/table.js';
+export { renderHtmlReport } from './report/html/index.js';
+export { runStudy, predictStudy, type StudyOptions, type StudyOutput, type CornerCache } from './run/study.js';
+export { simulateSteady } from './run/steady.js';
+export { createFileCache } from './run/cache.js';
+export { TOOL_VERSION } from './version.js';
