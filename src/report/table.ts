@@ -48,6 +48,10 @@ function triple(c: CornerResult, metric: string, scale = 1, digits = 4): Cell[] 
   return [{ text: f, flagged: false }, { text: s, flagged: false }, { text: `${e}${flagged ? '*' : ''}${r.unexpectedSign ? '?' : ''}`, flagged }];
 }
 
+function blank(): Cell[] {
+  return [{ text: '', flagged: false }, { text: '', flagged: false }, { text: '', flagged: false }];
+}
+
 function status(c: CornerResult, metric: 'zvs' | 'zcs'): Cell {
   const r = c.comparison.find((x) => x.metric === metric);
   const show = (v: unknown) => (v === true ? 'y' : v === false ? 'n' : '-');
@@ -61,18 +65,24 @@ function status(c: CornerResult, metric: 'zvs' | 'zcs'): Cell {
  */
 export function renderRunTable(results: Results, opts: TableOptions = {}): string {
   const em = (cell: Cell) => (opts.color && cell.flagged ? `\u001b[1;7m${cell.text}\u001b[0m` : cell.text);
-  const head1 = ['', '', 'fs kHz', '', '', 'gain M', '', '', 'Ir,rms A', '', '', 'ZVS', 'ZCS', ''];
-  const head2 = ['corner', 'status', 'FHA', 'sim', 'err', 'FHA', 'sim', 'err', 'FHA', 'sim', 'err', 'F/S', 'F/S', 'mode'];
+  // Regulated corners are compared on the frequency that meets the target, fixed ones on Vout.
+  const showFs = results.corners.some((c) => c.inputs.fs === null);
+  const showVout = results.corners.some((c) => c.inputs.fs !== null);
+  const head1 = ['', '', ...(showFs ? ['fs kHz', '', ''] : []), ...(showVout ? ['Vout V', '', ''] : []), 'gain M', '', '', 'Ir,rms A', '', '', 'ZVS', 'ZCS', ''];
+  const head2 = ['corner', 'status', ...(showFs ? ['FHA', 'sim', 'err'] : []), ...(showVout ? ['FHA', 'sim', 'err'] : []), 'FHA', 'sim', 'err', 'FHA', 'sim', 'err', 'F/S', 'F/S', 'mode'];
   const rows: Cell[][] = results.corners.map((c) => [
     { text: c.id, flagged: false },
     { text: c.status, flagged: c.status === 'failed' || c.status === 'diverged' || c.status === 'not-settled' },
-    ...triple(c, 'fs', 1e3, 4), ...triple(c, 'gain', 1, 4), ...triple(c, 'tankCurrentRms', 1, 3),
+    ...(showFs ? (c.inputs.fs === null ? triple(c, 'fs', 1e3, 4) : blank()) : []),
+    ...(showVout ? (c.inputs.fs !== null ? triple(c, 'vout', 1, 4) : blank()) : []),
+    ...triple(c, 'gain', 1, 4), ...triple(c, 'tankCurrentRms', 1, 3),
     status(c, 'zvs'), status(c, 'zcs'), { text: c.sim?.mode ?? '-', flagged: false },
   ]);
+  const last = head2.length - 1;
   const widths = head2.map((h, i) => Math.max(h.length, head1[i]!.length, ...rows.map((r) => r[i]!.text.length)));
   const fmt = (cells: Cell[]) => cells.map((x, i) => {
     const w = widths[i]!;
-    const padded = i < 2 || i === 13 ? pad(x.text, w) : lpad(x.text, w);
+    const padded = i < 2 || i === last ? pad(x.text, w) : lpad(x.text, w);
     return x.flagged ? padded.replace(x.text, em(x)) : padded;
   }).join('  ').trimEnd();
   const plain = (r: string[]) => fmt(r.map((text) => ({ text, flagged: false })));

@@ -12,6 +12,8 @@ export interface SteadyOptions {
   guess?: HeldOutputResult['seed'];
   /** Relative tolerance on vo in the bracketing fallback. @default 1e-10 */
   tolerance?: number;
+  /** 'bracket' skips the combined Newton and brackets vo directly (slower). @default 'auto' */
+  method?: 'auto' | 'bracket';
 }
 
 /**
@@ -26,7 +28,7 @@ export function solveSteadyState(p: TdParams, rl: number, opts: SteadyOptions = 
   if (!(rl > 0)) throw new RangeError(`tdmodel: load resistance must be > 0 (got ${rl})`);
   const voStart = Math.max(opts.voGuess ?? fhaVo(p, rl), 1e-6 * p.vin);
   if (!Number.isFinite(rl)) return noLoad(p, voStart);
-  const direct = solveLoaded(p, rl, voStart, opts.guess);
+  const direct = opts.method === 'bracket' ? null : solveLoaded(p, rl, voStart, opts.guess);
   if (direct && direct.vo >= 0) return finish(rl, direct, 1);
   return bracketed(p, rl, voStart, opts);
 }

@@ -12,11 +12,19 @@ export function num(x: unknown, digits = 4, scale = 1): string {
   return Number((v / scale).toPrecision(digits)).toString();
 }
 
-/** Relative error as a signed percentage with one decimal, e.g. "+3.5 %"; '' for null. */
+/** Relative error as a signed percentage with one decimal, e.g. "+3.5%"; '' for null. */
 export function pct(x: unknown, decimals = 1): string {
   const v = finite(x);
   if (v === null) return '';
-  return `${v >= 0 ? '+' : '-'}${Math.abs(v * 100).toFixed(decimals)} %`;
+  return `${v >= 0 ? '+' : '-'}${Math.abs(v * 100).toFixed(decimals)}%`;
+}
+
+/** Like num but keeps trailing zeros (table columns line up: "99.00"); no exponent form. */
+export function sig(x: unknown, digits = 4, scale = 1): string {
+  const v = finite(x);
+  if (v === null) return '';
+  const y = v / scale;
+  return Math.abs(y) >= 10 ** digits ? Math.round(y).toString() : y.toPrecision(digits);
 }
 
 /** Unsigned percentage for tolerances, e.g. "10 %". */

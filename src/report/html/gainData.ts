@@ -1,8 +1,7 @@
 /** Numbers behind the gain-against-frequency figure: FHA curves, zero-phase boundary, operating points. Pure. */
-import type { Corner } from '../../corners/types.js';
 import type { Design } from '../../design/types.js';
 import { fhaGain, zeroPhaseFn } from '../../fha/gain.js';
-import { bridgeFactor, predictCorner, rectifierDrop, tankConstants } from '../../fha/predict.js';
+import { acResistance, bridgeFactor, rectifierDrop, tankConstants } from '../../fha/predict.js';
 import type { CornerResult, Results } from '../types.js';
 import { finite } from './format.js';
 import { niceDomain } from './svg.js';
@@ -71,19 +70,16 @@ function loadKeys(corners: CornerResult[]): LoadKey[] {
   return [...m].map(([label, load]) => ({ label, load })).sort((a, b) => b.load - a.load);
 }
 
-function curveCorner(design: Design, vin: number, load: number, tank: { lr: number; cr: number; lm: number }, fs: number): Corner {
-  const v = design.output.voltage;
-  return { id: 'curve', vin, load, loadLabel: '', iout: v / load, pout: (v * v) / load, fs, ...tank,
-    turnsRatio: design.tank.turnsRatio, tolerance: { lr: 0, cr: 0, lm: 0 } };
-}
-
 /**
- * Open-loop FHA gain at each grid frequency for one Vin, load resistance and tank: Q follows Rac at
- * the output voltage FHA predicts there (rectifier drop included), so in regulated mode the curve
- * passes exactly through the corner's operating point.
+ * FHA gain at each grid frequency for one load resistance and tank, at the Q of the output set point:
+ * Q = Zr / Rac with Rac = 8 n^2 (Vo + drop) RL / (pi^2 Vo) (method reference 2.2, 2.4). This is the
+ * Q predictCorner uses when regulating, so a regulated corner's FHA point lies on its curve; at a
+ * fixed frequency the corner's own Vo shifts Q only through the drop term.
  */
-export function gainCurve(design: Design, vin: number, load: number, tank: { lr: number; cr: number; lm: number }, grid: number[]): (number | null)[] {
-  return grid.map((fs) => finite(predictCorner(design, curveCorner(design, vin, load, tank, fs)).gain));
+export function gainCurve(design: Design, load: number, tank: { lr: number; cr: number; lm: number }, grid: number[]): (number | null)[] {
+  const { fr, zr, ln } = tankConstants(tank);
+  const q = zr / acResistance(design.tank.turnsRatio, design.output.voltage, rectifierDrop(design), load);
+  return grid.map((fs) => finite(fhaGain(fs / fr, q, ln)));
 }
 
 /** Zero-phase boundary of the nominal tank as a locus over Q from 1e-3 to 30 (method reference 2.6). */
@@ -124,8 +120,9 @@ export function gainFigureData(results: Results, design?: Design): GainFigureDat
   const all = vins.flatMap(points);
   const pfs = all.flatMap((p) => [p.fha?.fs, p.sim?.fs]).filter((v): v is number => v !== undefined);
   const pg = all.flatMap((p) => [p.fha?.gain, p.sim?.gain]).filter((v): v is number => v !== undefined);
-  const lo = Math.min(fr ? Math.max(0.5 * fr, 0.95 * (fp ?? 0)) : Infinity, 0.9 * Math.min(...pfs));
-  const hi = Math.max(fr ? 1.6 * fr : -Infinity, 1.1 * Math.max(...pfs));
+  // From 0.6 fr (or just below fp) to 1.4 fr, widened to every operating point.
+  const lo = Math.min(fr ? Math.max(0.6 * fr, 0.95 * (fp ?? 0)) : Infinity, 0.92 * Math.min(...pfs));
+  const hi = Math.max(fr ? 1.4 * fr : -Infinity, 1.08 * Math.max(...pfs));
   const fsAxis = Number.isFinite(lo) && Number.isFinite(hi) ? niceDomain(lo, hi, 6) : niceDomain(0, 1, 5);
   const grid = Array.from({ length: GRID_POINTS }, (_, i) => fsAxis.d0 + ((fsAxis.d1 - fsAxis.d0) * i) / (GRID_POINTS - 1));
 
@@ -135,12 +132,12 @@ export function gainFigureData(results: Results, design?: Design): GainFigureDat
     if (!design) return { vin, curves: [], points: points(vin), target, vout: null };
     const curves: GainCurve[] = loads.map((l, li) => ({ l, li })).filter(({ l }) => here.some((c) => String(c.inputs.loadLabel) === l.label))
       .map(({ l, li }) => {
-        const gain = gainCurve(design, vin, l.load, design.tank, grid);
+        const gain = gainCurve(design, l.load, design.tank, grid);
         const tanks = new Map<string, { lr: number; cr: number; lm: number }>();
         for (const c of here) if (String(c.inputs.loadLabel) === l.label) tanks.set(`${c.inputs.lr}|${c.inputs.cr}|${c.inputs.lm}`, { lr: c.inputs.lr, cr: c.inputs.cr, lm: c.inputs.lm });
         tanks.delete(`${design.tank.lr}|${design.tank.cr}|${design.tank.lm}`);
         if (tanks.size === 0) return { load: li, gain };
-        return { load: li, gain, band: band([gain, ...[...tanks.values()].map((t) => gainCurve(design, vin, l.load, t, grid))]) };
+        return { load: li, gain, band: band([gain, ...[...tanks.values()].map((t) => gainCurve(design, l.load, t, grid))]) };
       });
     return { vin, curves, points: points(vin), target, vout: { perGain: (bridgeFactor(design) * vin) / design.tank.turnsRatio, drop: rectifierDrop(design) } };
   });

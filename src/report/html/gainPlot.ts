@@ -13,20 +13,24 @@ const M = { l: 48, r: 50, t: 26, b: 40 };
 
 const kHz = (v: number) => num(v, 4, 1e3);
 
-function pointGroup(p: GainPoint, sx: Scale, sy: Scale): string {
-  const c = seriesColour(Math.max(p.load, 0));
-  const parts: string[] = [];
-  if (p.fha && p.sim) parts.push(`<path class="gap" d="M${px(sx(p.fha.fs))} ${px(sy(p.fha.gain))}L${px(sx(p.sim.fs))} ${px(sy(p.sim.gain))}"/>`);
-  if (p.fha) parts.push(`<circle class="pt-fha" cx="${px(sx(p.fha.fs))}" cy="${px(sy(p.fha.gain))}" r="4" stroke="${c}"/>`);
-  if (p.sim) {
-    const x = sx(p.sim.fs);
-    const y = sy(p.sim.gain);
-    parts.push(`<path class="pt-sim" d="M${px(x)} ${px(y - 4.5)}l4.5 4.5-4.5 4.5-4.5-4.5z" fill="${c}"/>`);
-  }
+/**
+ * Operating points in three layers (gap lines, simulated, FHA on top: hollow, so nothing hides), each
+ * marker a link to its table row with the values as a tooltip.
+ */
+function pointLayers(points: GainPoint[], sx: Scale, sy: Scale): string {
+  const link = (p: GainPoint, body: string) => `<a href="#${rowAnchor(p.id)}" class="op"><title>${esc(tooltip(p))}</title>${body}</a>`;
+  const gaps = points.filter((p) => p.fha && p.sim)
+    .map((p) => `M${px(sx(p.fha!.fs))} ${px(sy(p.fha!.gain))}L${px(sx(p.sim!.fs))} ${px(sy(p.sim!.gain))}`).join('');
+  const sims = points.filter((p) => p.sim).map((p) => link(p, `<path class="pt-sim" d="M${px(sx(p.sim!.fs))} ${px(sy(p.sim!.gain) - 4.5)}l4.5 4.5-4.5 4.5-4.5-4.5z" fill="${seriesColour(Math.max(p.load, 0))}"/>`));
+  const fhas = points.filter((p) => p.fha).map((p) => link(p, `<circle class="pt-fha" cx="${px(sx(p.fha!.fs))}" cy="${px(sy(p.fha!.gain))}" r="4" stroke="${seriesColour(Math.max(p.load, 0))}"/>`));
+  return `${gaps ? `<path class="gap" d="${gaps}"/>` : ''}${sims.join('')}${fhas.join('')}`;
+}
+
+function tooltip(p: GainPoint): string {
   const fha = p.fha ? `FHA ${kHz(p.fha.fs)} kHz, M ${num(p.fha.gain)}` : 'FHA: no operating point';
   const sim = p.sim ? `sim ${kHz(p.sim.fs)} kHz, M ${num(p.sim.gain)}` : 'sim: none';
   const gap = p.fha && p.sim ? ` (fs ${pct((p.sim.fs - p.fha.fs) / p.fha.fs)}, M ${pct((p.sim.gain - p.fha.gain) / p.fha.gain)})` : '';
-  return `<a href="#${rowAnchor(p.id)}" class="op"><title>${esc(`${p.id}: ${fha}; ${sim}${gap}`)}</title>${parts.join('')}</a>`;
+  return `${p.id}: ${fha}; ${sim}${gap}`;
 }
 
 /** Capacitive region: left of fp, and below the zero-phase locus down to fr (method reference 2.6). */
@@ -39,6 +43,15 @@ function capacitiveRegion(d: GainFigureData, sx: Scale, sy: Scale, h: number): s
 
 function vline(x: number, h: number, label: string): string {
   return `<path class="marker" d="M${px(x)} 0v${h}"/><text class="marker" x="${px(x + 3)}" y="11">${esc(label)}</text>`;
+}
+
+/** Load labels at the right-hand ends of the curves, nudged apart so they never overlap. */
+function curveLabels(d: GainFigureData, p: GainPanel, sy: Scale, w: number): string {
+  const labels = p.curves.map((c) => ({ c, y: c.gain[c.gain.length - 1] }))
+    .filter((l): l is { c: GainPanel['curves'][number]; y: number } => typeof l.y === 'number' && l.y > d.gainAxis.d0 && l.y < d.gainAxis.d1)
+    .map((l) => ({ c: l.c, y: sy(l.y) + 12 })).sort((a, b) => a.y - b.y);
+  for (let i = 1; i < labels.length; i++) labels[i]!.y = Math.max(labels[i]!.y, labels[i - 1]!.y + 11);
+  return labels.map(({ c, y }) => `<text class="curve-label" x="${w - 3}" y="${px(y)}" text-anchor="end" style="fill:${seriesColour(c.load)}">${esc(d.loads[c.load]!.label)}</text>`).join('');
 }
 
 function panelSvg(d: GainFigureData, p: GainPanel): string {
@@ -57,17 +70,14 @@ function panelSvg(d: GainFigureData, p: GainPanel): string {
   if (d.fr !== null) inner.push(vline(sx(d.fr), h, 'fr'));
   if (d.fp !== null && d.fp > d.fsAxis.d0) inner.push(vline(sx(d.fp), h, 'fp'));
   if (p.target !== null) {
-    inner.push(`<path class="target" d="M0 ${px(sy(p.target))}h${w}"/><text class="marker" x="${w - 4}" y="${px(sy(p.target) + 12)}" text-anchor="end">gain for Vout set point</text>`);
+    inner.push(`<path class="target" d="M0 ${px(sy(p.target))}h${w}"/><text class="marker" x="${w - 4}" y="${px(sy(p.target) - 4)}" text-anchor="end">gain for the Vout set point</text>`);
   }
   for (const c of p.curves) {
     const dash = seriesDash(c.load);
     inner.push(`<path class="curve" data-series="${esc(d.loads[c.load]!.label)}" d="${linePath(d.grid, c.gain, sx, sy)}" stroke="${seriesColour(c.load)}"${dash ? ` stroke-dasharray="${dash}"` : ''}/>`);
-    const last = c.gain[c.gain.length - 1];
-    if (last !== null && last !== undefined && last > d.gainAxis.d0 && last < d.gainAxis.d1) {
-      inner.push(`<text class="curve-label" x="${w - 3}" y="${px(sy(last) - 4)}" text-anchor="end" fill="${seriesColour(c.load)}">${esc(d.loads[c.load]!.label)}</text>`);
-    }
   }
-  inner.push(...p.points.map((pt) => pointGroup(pt, sx, sy)));
+  inner.push(curveLabels(d, p, sy, w));
+  inner.push(pointLayers(p.points, sx, sy));
   const y2 = p.vout ? voutTicks(p.vout, d.gainAxis.d0, d.gainAxis.d1) : undefined;
   const fr = frame({
     x: M.l, y: M.t, w, h,
@@ -101,7 +111,7 @@ export function renderGainSection(results: Results, design?: Design): string {
   const d = gainFigureData(results, design);
   if (d.panels.length === 0) return '<p>No corners to plot.</p>';
   const note = d.hasDesign
-    ? '<p class="caption">Tank gain M = n (Vout + V<sub>F</sub>) / V<sub>in,eff</sub> against switching frequency, one panel per input voltage. Curves: open-loop FHA gain for each load with the nominal tank, Q from R<sub>ac</sub> at the output voltage FHA gives there (rectifier drop included); shaded bands: spread over the tank tolerance sets. Grey area: capacitive tank input (below the zero-phase boundary, or below fp), where ZVS is lost. Each point links to its table row; hover for values.</p>'
+    ? '<p class="caption">Tank gain M = n (Vout + V<sub>F</sub>) / V<sub>in,eff</sub> against switching frequency, one panel per input voltage. Curves: FHA gain for each load with the nominal tank, Q from R<sub>ac</sub> at the output set point (rectifier drop included); shaded bands: spread over the tank tolerance sets. Grey area: capacitive tank input (below the zero-phase boundary, or below fp), where ZVS is lost. Each point links to its table row; hover for values.</p>'
     : '<p class="caption notice">The design file was not available, so this figure shows only the FHA and simulated operating points (and fr from the results): the FHA gain curves and the zero-phase boundary need the design. Re-run the report with the design file to draw them.</p>';
   return `${note}<div class="panels">${d.panels.map((p) => panelSvg(d, p)).join('')}</div>${legend(d)}`;
 }

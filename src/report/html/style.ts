@@ -27,6 +27,7 @@ code{font-size:12px}
 .facts dt{color:var(--muted)}.facts dd{margin:0}
 .counts{display:flex;flex-wrap:wrap;gap:8px;list-style:none;padding:0;margin:10px 0}
 .counts li{border:1px solid var(--line);padding:4px 10px;border-radius:4px}
+.counts li.none{opacity:.55}
 .counts .big{font-size:18px;font-weight:600;margin-right:2px}
 table{border-collapse:collapse;font-variant-numeric:tabular-nums}
 table.worst{margin:8px 0}table.worst caption{text-align:left;font-weight:600;padding-bottom:4px}
@@ -96,7 +97,7 @@ table.cmp td.notes pre{white-space:pre-wrap;font-size:10.5px}
 table.cmp tr:target th,table.cmp tr:target td{outline:2px solid #0072B2;outline-offset:-2px}
 a.wl{text-decoration:none;font-weight:400}
 .waves{display:grid;grid-template-columns:repeat(auto-fill,minmax(560px,1fr));gap:16px 24px}
-figure.wave{border:1px solid var(--line);padding:6px 8px;content-visibility:auto;contain-intrinsic-size:auto 560px}
+figure.wave{border:1px solid var(--line);padding:6px 8px}
 figure.wave figcaption{font-size:12.5px;margin-bottom:2px}
 figure.wave:target{outline:2px solid #0072B2}
 .wave svg{width:100%;height:auto}
@@ -110,7 +111,6 @@ ${HIDE_CSS}
   body{max-width:none;padding:0;font-size:10pt}nav,.filter{display:none}
   h2{break-after:avoid}svg.plot,figure,table.map{break-inside:avoid}
   .tablewrap{overflow:visible;border:none}table.cmp{font-size:7pt}
-  figure.wave{content-visibility:visible}details.more>*{display:block}
   a{color:inherit;text-decoration:none}
 }
 `;

@@ -8,7 +8,7 @@ import { METRIC_NAMES } from './table.js';
 function counts(results: Results): string {
   const n = (s: string) => results.corners.filter((c) => c.status === s).length;
   const item = (s: (typeof STATUS_ORDER)[number], extra = '') =>
-    `<li class="st-${s}"><span class="big">${n(s)}</span> ${STATUS_STYLE[s].symbol} ${STATUS_STYLE[s].label}${extra}</li>`;
+    `<li class="st-${s}${n(s) ? '' : ' none'}"><span class="big">${n(s)}</span> ${STATUS_STYLE[s].symbol} ${STATUS_STYLE[s].label}${extra}</li>`;
   return `<ul class="counts">${STATUS_ORDER.map((s) => item(s)).join('')}<li><span class="big">${results.corners.length}</span> corners in all</li></ul>`;
 }
 
@@ -34,7 +34,7 @@ function baseline(results: Results): string {
 export function renderSummary(results: Results): string {
   const banner = results.incomplete
     ? '<p class="banner" role="alert"><strong>⚠ Incomplete run.</strong> The study was interrupted: corners without a simulation are FHA-only, and the counts below cover what finished.</p>' : '';
-  const engine = results.engine ? `${results.engine.name} ${results.engine.version}` : 'none (FHA only)';
+  const engine = results.engine ? `${results.engine.version} (engine: ${results.engine.name})` : 'none (FHA only)';
   const facts = [
     ['Design', `${esc(results.design.name)}${results.design.file ? ` <small>(<code>${esc(results.design.file)}</code>)</small>` : ''}`],
     ['Simulator', esc(engine)],

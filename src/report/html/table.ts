@@ -1,7 +1,7 @@
 /** The side-by-side FHA | sim | error table, sortable and filterable by the page script. Pure. */
 import type { ComparisonRow, CornerResult, Results } from '../types.js';
 import { esc, rowAnchor, waveAnchor } from './escape.js';
-import { finite, num, pct } from './format.js';
+import { finite, num, pct, sig } from './format.js';
 import { knownStatus, STATUS_ORDER, STATUS_STYLE, statusText } from './palette.js';
 
 interface MetricColumn { key: string; label: string; unit: string; scale: number; digits: number }
@@ -57,7 +57,7 @@ function triple(c: CornerResult, m: MetricColumn): string {
   const errCell = flagged
     ? `<td class="err flag"${abs}${tip}>${esc(err || 'n/a')}${FLAG}${r!.unexpectedSign ? ODD : ''}</td>`
     : `<td class="err${r?.verdict === 'info' ? ' info' : ''}"${abs}>${esc(err)}</td>`;
-  return `<td class="grp">${esc(num(f, m.digits, m.scale))}</td><td>${esc(num(s, m.digits, m.scale))}</td>${errCell}`;
+  return `<td class="grp">${esc(sig(f, m.digits, m.scale))}</td><td>${esc(sig(s, m.digits, m.scale))}</td>${errCell}`;
 }
 
 function show(v: ComparisonRow['fha'], metric: string): string {
