@@ -7,12 +7,12 @@ import type { CornerCache } from './study.js';
 import type { CornerOutcome } from './corner.js';
 import { predictCorner } from '../fha/predict.js';
 import { buildDeck } from '../netlist/deck.js';
-import { fhaSeed } from '../netlist/seed.js';
+import { startPoint } from './seed.js';
 import { writeFilesAtomic } from './files.js';
 import { TOOL_VERSION } from '../version.js';
 
 /** Bump when the simulation or measurement method changes, so old entries are not reused. */
-export const CACHE_FORMAT = 1;
+export const CACHE_FORMAT = 2;
 
 /**
  * Content-addressed corner cache on disk. The key hashes the corner's first deck (every circuit
@@ -23,10 +23,10 @@ export function createFileCache(dir: string): CornerCache {
   return {
     key(design: Design, corner: Corner, engineVersion: string): string {
       const fha = predictCorner(design, corner);
-      const fs = corner.fs ?? fha.fs ?? fha.fsZeroPhase;
-      const deck = buildDeck({ design, corner, fs, seed: fhaSeed(design, corner, fs, fha.vout ?? design.output.voltage), cycles: 20, saveCycles: 20 });
+      const start = startPoint(design, corner, fha);
+      const deck = buildDeck({ design, corner, fs: start.fs, seed: start.seed, cycles: 24, saveCycles: 24 });
       const h = createHash('sha256');
-      h.update(JSON.stringify({ CACHE_FORMAT, TOOL_VERSION, engineVersion, deck: deck.text, sim: design.simulation, target: design.output.voltage, regulated: corner.fs === null }));
+      h.update(JSON.stringify({ CACHE_FORMAT, TOOL_VERSION, engineVersion, deck: deck.text, sim: design.simulation, target: design.output.voltage, slope: start.slope, regulated: corner.fs === null }));
       return h.digest('hex');
     },
     async get(key: string): Promise<CornerOutcome | undefined> {

@@ -4,15 +4,17 @@ import type { FhaResult } from '../fha/types.js';
 import type { SimEngine } from '../engine/types.js';
 import type { Waveforms } from '../measure/types.js';
 import type { CornerResult, SimSummary, WaveformExcerpt } from '../report/types.js';
-import { fhaSeed } from '../netlist/seed.js';
 import { compareCorner } from '../compare/compare.js';
 import { simulateSteady, WINDOW_CYCLES } from './steady.js';
-import { fhaSlope, regulate } from './regulate.js';
+import { regulate } from './regulate.js';
+import { startPoint, type SeedMethod } from './seed.js';
 import { excerpt } from '../report/excerpt.js';
 
 export interface CornerRunOptions {
   signal?: AbortSignal;
   timeoutMs?: number;
+  /** How runs start. @default 'model' */
+  seed?: SeedMethod;
 }
 
 export interface CornerOutcome {
@@ -24,11 +26,6 @@ export function cornerInputs(c: Corner): CornerResult['inputs'] {
   return { vin: c.vin, load: c.load, loadLabel: c.loadLabel, iout: c.iout, pout: c.pout, fs: c.fs, lr: c.lr, cr: c.cr, lm: c.lm, turnsRatio: c.turnsRatio, tolerance: c.tolerance };
 }
 
-/** Start frequency of a regulated search: the FHA solution, or the zero-phase boundary when FHA finds none. */
-function startFrequency(fha: FhaResult): number {
-  return fha.fs ?? fha.fsZeroPhase;
-}
-
 /**
  * Simulate one corner to a verified steady state (regulated: at the frequency that meets
  * output.voltage), measure it and compare it with FHA. Never throws for simulator problems:
@@ -38,9 +35,7 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
   opts: CornerRunOptions = {}): Promise<CornerOutcome> {
   const regulated = corner.fs === null;
   const steadyOpts = { tolerance: design.simulation.settleTolerance, maxCycles: design.simulation.maxCycles, signal: opts.signal, timeoutMs: opts.timeoutMs };
-  const fs0 = regulated ? startFrequency(fha) : corner.fs!;
-  const vo0 = regulated ? design.output.voltage : fha.vout ?? design.output.voltage;
-  const seed = fhaSeed(design, corner, fs0, vo0);
+  const start = startPoint(design, corner, fha, opts.seed);
   const base = { id: corner.id, inputs: cornerInputs(corner), fha };
   let steady;
   let simulations = 1;
@@ -48,11 +43,11 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
   let runs;
   let regulationMet = true;
   if (regulated) {
-    const r = await regulate(engine, design, corner, fs0, seed, fhaSlope(design, corner, fs0), steadyOpts);
+    const r = await regulate(engine, design, corner, start.fs, start.seed, start.slope, steadyOpts);
     ({ steady, simulations, cycles, runs } = r);
     regulationMet = r.met;
   } else {
-    steady = await simulateSteady(engine, design, corner, fs0, seed, steadyOpts);
+    steady = await simulateSteady(engine, design, corner, start.fs, start.seed, steadyOpts);
     ({ cycles, runs } = steady);
   }
   if (!steady.ok || !steady.metrics) {

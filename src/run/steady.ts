@@ -19,8 +19,8 @@ export const RETRY_RUNGS: readonly RetryRung[] = [
   { label: 'zero-state start', transform: (d) => d.replace(/ ic=[^ \n]+/g, ' ic=0') },
 ];
 
-/** Settling windows: each run simulates two windows of this many whole cycles. */
-export const WINDOW_CYCLES = 10;
+/** Settling and measurement window: whole switching cycles. */
+export const WINDOW_CYCLES = 8;
 
 export interface SteadyOptions {
   /** Relative settle tolerance (design.simulation.settleTolerance). */
@@ -66,24 +66,48 @@ export function outputTimeConstant(design: Design, corner: Corner, fs: number): 
 }
 
 /**
- * Settling error of one run with two windows of whole cycles: the larger of the change between the
- * window averages, |a2 - a1| / a2, and the error still to come if the output keeps moving at that
- * rate for one output time constant, |a2 - a1| / (window length) * tau / a2. The second term keeps a
- * slow first-order drift from passing as settled just because two short windows look alike.
+ * Settling error after a sequence of window averages of the output voltage (oldest first), each
+ * over `windowTime` seconds of whole cycles. The largest of:
+ * - the change between the last two windows, |a_n - a_n-1| / a_n;
+ * - that change projected over the output time constant tau (a first-order drift whose per-window
+ *   change looks small);
+ * - when the last two changes have the same sign (a monotone approach), the geometric tail still to
+ *   come, |d_n| r / (1 - r) with r = d_n / d_n-1 (Aitken), capped by the longest time constant the
+ *   output can have, RL Co (so a ratio near 1 at noise level cannot block settling forever).
  */
-export function settleError(w: Waveforms, t0: number, period: number, cycles: number, tau: number): number {
-  const t1 = t0 + cycles * period;
-  const t2 = t1 + cycles * period;
-  const a1 = spanAverage(makeSpan(w.t, t0, t1), w.vout);
-  const a2 = spanAverage(makeSpan(w.t, t1, t2), w.vout);
-  const change = Math.abs(a2 - a1) / Math.abs(a2);
-  return Math.max(change, (change * tau) / (t2 - t1));
+export function settleErrorOf(avgs: number[], windowTime: number, tau: number, tauMax: number): number {
+  const n = avgs.length;
+  if (n < 2) return Infinity;
+  const a = Math.abs(avgs[n - 1]!);
+  const d2 = avgs[n - 1]! - avgs[n - 2]!;
+  const change = Math.abs(d2) / a;
+  let err = Math.max(change, (change * tau) / windowTime);
+  if (n >= 3) {
+    const d1 = avgs[n - 2]! - avgs[n - 3]!;
+    if (d1 !== 0 && Math.sign(d1) === Math.sign(d2)) {
+      const r = d2 / d1;
+      const bound = (change * tauMax) / windowTime;
+      err = Math.max(err, r >= 1 ? bound : Math.min((change * r) / (1 - r), bound));
+    }
+  }
+  return err;
+}
+
+/** Average output voltage over consecutive windows of `cycles` whole cycles from t0. */
+function windowAverages(w: Waveforms, t0: number, period: number, cycles: number, count: number): number[] {
+  const out: number[] = [];
+  for (let k = 0; k < count; k++) {
+    const a = t0 + k * cycles * period;
+    out.push(spanAverage(makeSpan(w.t, Math.max(a, w.t[0]!), a + cycles * period), w.vout));
+  }
+  return out;
 }
 
 /**
- * Simulate one operating point until it is verified to be in steady state: each run covers two
- * windows of WINDOW_CYCLES cycles; a run that has not settled is continued from its final state,
- * until the settle error is below tolerance or the cycle cap is reached ("not settled").
+ * Simulate one operating point until it is verified to be in steady state. The first run covers
+ * three windows of WINDOW_CYCLES cycles, each continuation two more, started from the final state
+ * of the previous run; the window averages form one history that settleErrorOf judges, until the
+ * error is within tolerance or the cycle cap is reached ("not settled"). The last window is measured.
  */
 export async function simulateSteady(engine: SimEngine, design: Design, corner: Corner, fs: number,
   seed: DeckSeed, opts: SteadyOptions): Promise<SteadyResult> {
@@ -91,29 +115,33 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
   const period = 1 / fs;
   const profile = opts.profile ?? STEP_PROFILES[design.simulation.accuracy];
   const attempts: Attempt[] = [];
-  let state = seed;
   const tau = outputTimeConstant(design, corner, fs);
+  const tauMax = corner.load * design.output.capacitance;
+  const history: number[] = [];
+  let state = seed;
   let cycles = 0;
   let runs = 0;
   let last: Omit<SteadyResult, 'cycles' | 'runs' | 'attempts' | 'fs'> | undefined;
-  while (cycles + 2 * K <= Math.max(opts.maxCycles, 2 * K)) {
-    const deck = buildDeck({ design, corner, fs, seed: state, cycles: 2 * K, saveCycles: 2 * K, profile });
-    const timeoutMs = opts.timeoutMs ?? Math.max(30_000, 2 * K * 100 * (profile.stepsPerPeriod / 350));
+  for (;;) {
+    const windows = runs === 0 ? 3 : 2;
+    if (runs > 0 && cycles + windows * K > opts.maxCycles) break;
+    const deck = buildDeck({ design, corner, fs, seed: state, cycles: windows * K, saveCycles: windows * K, profile });
+    const timeoutMs = opts.timeoutMs ?? Math.max(30_000, windows * K * 100 * (profile.stepsPerPeriod / 350));
     const res = await runWithRetries(engine, { id: corner.id, deck: deck.text, timeoutMs, signal: opts.signal }, RETRY_RUNGS);
     runs++;
-    cycles += 2 * K;
+    cycles += windows * K;
     attempts.push(...res.attempts);
     if (!res.ok) {
       const detail = res.diagnostics.filter((d) => d.level === 'error').map((d) => d.text).slice(-5).join('\n');
       return { fs, ok: false, failure: { ...res.failure!, detail }, settled: false, settleError: NaN, cycles, runs, windowStart: 0, attempts };
     }
     const w = toWaveforms(design, corner, fs, res.vectors);
-    const err = settleError(w, deck.tstart, period, K, tau);
+    history.push(...windowAverages(w, deck.tstart, period, K, windows));
+    const err = settleErrorOf(history, K * period, tau, tauMax);
     state = finalState(w, res.vectors);
-    last = { ok: true, settled: err <= opts.tolerance, settleError: err, waveforms: w, windowStart: deck.tstart + K * period, state };
+    last = { ok: true, settled: err <= opts.tolerance, settleError: err, waveforms: w, windowStart: deck.tstop - K * period, state };
     if (last.settled) break;
   }
-  if (!last) return { fs, ok: false, failure: { kind: 'input', message: 'cycle cap below one run' }, settled: false, settleError: NaN, cycles, runs, windowStart: 0, attempts };
-  const metrics = measure(last.waveforms!, { tStart: last.windowStart, cycles: K }, { zvsThreshold: design.simulation.zvsThreshold });
-  return { fs, ...last, metrics, cycles, runs, attempts };
+  const metrics = measure(last!.waveforms!, { tStart: last!.windowStart, cycles: K }, { zvsThreshold: design.simulation.zvsThreshold });
+  return { fs, ...last!, metrics, cycles, runs, attempts };
 }

@@ -12,6 +12,7 @@ interface Guard { w: number[]; e: number; id: GuardId }
 
 const W_SEC = [1, -1, 0, 0];
 const MAX_EVENTS = 400;
+const MAX_STEPS = 200_000;
 const RECT_GUARDS = new Set<GuardId>(['secP', 'secN', 'oUp', 'oLow']);
 
 /**
@@ -48,6 +49,7 @@ export class HalfPeriod {
     }
     let rect = decideRect(c, x, kind(bridge));
     let events = 0;
+    let steps = 0;
     let zeroRun = 0; // rectifier events in a row without progress: a tangency (grazing) point
     this.absSec = 0;
     for (;;) {
@@ -62,6 +64,7 @@ export class HalfPeriod {
       }
       const sys = c.modes.get(kind(bridge) + rect)!;
       const h = Math.min(1 / sys.rho, tEnd - t);
+      if (++steps > MAX_STEPS) throw new Error('tdmodel: step limit exceeded in one half period');
       expand(sys.a, sys.b, x, h, poly);
       let tau = h;
       let hit: GuardId | null = null;

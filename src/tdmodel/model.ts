@@ -61,7 +61,8 @@ export function normalize(p: TdParams, vo: number): Circuit {
   const lm = p.lm / p.lr;
   const c: Circuit = {
     lm,
-    ce: (fb ? p.coss : 2 * p.coss) / p.cr,
+    // Below 1e-9 Cr the node swings at once on every scale resolved here: no capacitance.
+    ce: (fb ? p.coss : 2 * p.coss) / p.cr < 1e-9 ? 0 : (fb ? p.coss : 2 * p.coss) / p.cr,
     rs: (fb ? 2 * p.rdsOn : p.rdsOn) / z,
     rd: (p.n * p.n * nd * p.rd) / z,
     vc: (p.n * (vo + nd * p.vf)) / p.vin,

@@ -93,11 +93,11 @@ describe('tankcheck run (system ngspice)', () => {
 
   it('--baseline: unchanged design exits 0; a deliberately changed design is a regression (exit 1)', async () => {
     const base = join(out, 'results.json');
-    const same = await runCli(['run', pass, '--engine', 'ngspice', '--out', join(dir, 'b1'), '--baseline', base]);
+    const same = await runCli(['run', pass, '--engine', 'ngspice', '--out', join(dir, 'b1'), '--baseline', base, '--cache-dir', join(dir, 'cache-b')]);
     expect(same.code).toBe(0);
     expect(same.stdout).toMatch(/no change beyond tolerance/);
     const changed = passingDesign('changed.yaml', '47 nF');
-    const r = await runCli(['run', changed, '--engine', 'ngspice', '--out', join(dir, 'b2'), '--baseline', base]);
+    const r = await runCli(['run', changed, '--engine', 'ngspice', '--out', join(dir, 'b2'), '--baseline', base, '--cache-dir', join(dir, 'cache-b')]);
     expect(r.code).toBe(1);
     const res = JSON.parse(readFileSync(join(dir, 'b2', 'results.json'), 'utf8'));
     expect(res.baseline.regressed).toBe(true);
@@ -105,7 +105,7 @@ describe('tankcheck run (system ngspice)', () => {
   });
 
   it('the demo diverges from FHA beyond tolerance: exit 1, junit failures', async () => {
-    const r = await runCli(['run', DEMO_FILE, '--engine', 'ngspice', '--out', join(dir, 'demo'), '--only', 'v340_100pct*']);
+    const r = await runCli(['run', DEMO_FILE, '--engine', 'ngspice', '--out', join(dir, 'demo'), '--only', 'v340_100pct*', '--no-cache']);
     expect(r.code).toBe(1);
     expect(readFileSync(join(dir, 'demo', 'junit.xml'), 'utf8')).toMatch(/<failure /);
   });

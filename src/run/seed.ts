@@ -1,0 +1,73 @@
+import type { Design } from '../design/types.js';
+import type { Corner } from '../corners/types.js';
+import type { FhaResult } from '../fha/types.js';
+import type { DeckSeed } from '../netlist/types.js';
+import { fhaSeed } from '../netlist/seed.js';
+import { diodeFit, THERMAL_VOLTAGE } from '../netlist/devices.js';
+import { solveFrequency, solveSteadyState, tdParamsFromCorner, type TdParams, type SeedState } from '../tdmodel/index.js';
+import { fhaSlope } from './regulate.js';
+
+/**
+ * How a simulation is started: 'model' (default) from the periodic state of the time-domain model
+ * (it includes dead time, drops and the O/N intervals FHA misses), 'fha' from the FHA phasors,
+ * 'zero' from rest (for comparison only).
+ */
+export type SeedMethod = 'model' | 'fha' | 'zero';
+
+/** Where a corner's simulation starts: frequency, state and the expected slope dVo/dfs (V/Hz). */
+export interface StartPoint {
+  fs: number;
+  seed: DeckSeed;
+  slope: number;
+  source: SeedMethod;
+}
+
+/**
+ * Time-domain model parameters matching the deck. The model's diode is VF + rd i; the deck's fitted
+ * diode is exponential, so VF is taken where that diode sits at this corner's load: its knee at the
+ * output current (the average diode current while conducting).
+ */
+export function modelParams(design: Design, corner: Corner, fs: number): TdParams {
+  const p = tdParamsFromCorner(design, corner, fs);
+  if (design.devices.diodeModel) return p;
+  const f = diodeFit(design);
+  return { ...p, vf: f.n * THERMAL_VOLTAGE * Math.log(corner.iout / f.is + 1), rd: f.rs };
+}
+
+function fromModel(s: SeedState): DeckSeed {
+  return { vo: s.vo, ir: s.ir, im: s.im, vcr: s.vcr, va: s.vNode[0] ?? 0, vb: s.vNode[1] ?? 0 };
+}
+
+const ZERO: DeckSeed = { vo: 0, ir: 0, im: 0, vcr: 0, va: 0, vb: 0 };
+
+/**
+ * Start of a corner's simulation. Regulated corners start at the frequency the model predicts for
+ * output.voltage (FHA's when the model finds none); the slope for the first search step comes
+ * from the same model. Any model failure falls back to FHA, so a start always exists.
+ */
+export function startPoint(design: Design, corner: Corner, fha: FhaResult, method: SeedMethod = 'model'): StartPoint {
+  const regulated = corner.fs === null;
+  const fhaFs = regulated ? fha.fs ?? fha.fsZeroPhase : corner.fs!;
+  const fallback = (): StartPoint => ({
+    fs: fhaFs,
+    seed: method === 'zero' ? ZERO : fhaSeed(design, corner, fhaFs, regulated ? design.output.voltage : fha.vout ?? design.output.voltage),
+    slope: fhaSlope(design, corner, fhaFs),
+    source: method === 'zero' ? 'zero' : 'fha',
+  });
+  if (method !== 'model') return fallback();
+  try {
+    const p = modelParams(design, corner, fhaFs);
+    if (!regulated) {
+      const r = solveSteadyState(p, corner.load);
+      const up = solveSteadyState({ ...p, fs: fhaFs * 1.005 }, corner.load, { guess: r.seed, voGuess: r.vo });
+      return { fs: fhaFs, seed: fromModel(r.seed), slope: (up.vo - r.vo) / (fhaFs * 0.005), source: 'model' };
+    }
+    const f = solveFrequency(p, corner.load, design.output.voltage, fhaFs);
+    if (f.fs === null) return fallback();
+    const up = solveSteadyState({ ...p, fs: f.fs * 1.005 }, corner.load, { guess: f.state.seed, voGuess: f.state.vo });
+    const slope = (up.vo - f.state.vo) / (f.fs * 0.005);
+    return { fs: f.fs, seed: fromModel(f.state.seed), slope: slope < 0 ? slope : fhaSlope(design, corner, f.fs), source: 'model' };
+  } catch {
+    return fallback();
+  }
+}
