@@ -1,0 +1,66 @@
+import { describe, expect, it } from 'vitest';
+import { compareCorner } from './compare.js';
+import { zoneOf } from './reasons.js';
+import { predictCorner } from '../fha/predict.js';
+import { expandCorners } from '../corners/expand.js';
+import { makeDesign } from '../../test/support/design.js';
+import type { SimMetrics } from '../measure/types.js';
+
+const design = makeDesign();
+const corner = expandCorners(design)[0]!;
+const fha = predictCorner(design, corner); // worked example 6.3: fn = 0.894, below resonance
+
+/** Simulated metrics equal to FHA's, then overridden. */
+function sim(over: Partial<SimMetrics>): SimMetrics {
+  const base: SimMetrics = {
+    fs: fha.fs!, gain: fha.gain!, vout: fha.vout!, voutRipple: 0.1, iout: fha.iout!, pout: fha.vout! * fha.iout!,
+    tankCurrentRms: fha.tankCurrentRms!, tankCurrentPeak: fha.tankCurrentPeak!, magnetizingCurrentPeak: fha.magnetizingCurrentPeak!,
+    crVoltagePeak: fha.crVoltagePeak!, crVoltageMin: fha.crVoltageMin!, switchCurrentRms: fha.switchCurrentRms!,
+    switchTurnOffCurrent: fha.switchTurnOffCurrent!, diodeCurrentAvg: fha.diodeCurrentAvg!, diodeCurrentPeak: fha.diodeCurrentPeak!,
+    diodeCurrentRms: fha.diodeCurrentRms!, diodeReverseVoltage: fha.diodeReverseVoltage!, diodeReverseCurrent: 0,
+    outputRippleCurrentRms: fha.outputRippleCurrentRms!, zvs: true, zvsState: 'zvs', zvsWorstVoltage: 0, zvsMarginTime: 1e-7,
+    zcs: true, zcsRatio: 0, region: 'inductive', mode: 'PO',
+  };
+  return { ...base, ...over };
+}
+
+describe('compareCorner', () => {
+  it('identical values: every numeric row ok with error 0, no divergence', () => {
+    const c = compareCorner(design, fha, sim({}), false);
+    expect(c.divergences).toHaveLength(0);
+    for (const r of c.rows.filter((x) => typeof x.error === 'number')) expect(r.error).toBe(0);
+  });
+
+  it('relative error is (sim - fha)/|fha| and the group tolerance decides', () => {
+    const c = compareCorner(design, fha, sim({ gain: fha.gain! * 1.05, tankCurrentRms: fha.tankCurrentRms! * 1.09 }), false);
+    const gain = c.rows.find((r) => r.metric === 'gain')!;
+    expect(gain.error).toBeCloseTo(0.05, 12);
+    expect(gain.tolerance).toBe(0.03);
+    expect(gain.verdict).toBe('diverged');
+    expect(c.rows.find((r) => r.metric === 'tankCurrentRms')!.verdict).toBe('ok'); // 9 % < 10 %
+  });
+
+  it('below resonance a higher simulated gain is the expected FHA limitation; a lower one is flagged as a model suspicion (method reference 5.3)', () => {
+    expect(zoneOf(fha.fs!, fha.fr, fha.fp)).toBe('below');
+    const up = compareCorner(design, fha, sim({ gain: fha.gain! * 1.08 }), false).divergences.find((d) => d.metric === 'gain')!;
+    expect(up.unexpectedSign).toBeUndefined();
+    expect(up.reason).toMatch(/under-predicts gain/);
+    const down = compareCorner(design, fha, sim({ gain: fha.gain! * 0.9 }), false).divergences.find((d) => d.metric === 'gain')!;
+    expect(down.unexpectedSign).toBe(true);
+  });
+
+  it('status disagreements are divergences with a reason', () => {
+    const c = compareCorner(design, fha, sim({ zvs: false, zvsState: 'hard', zvsWorstVoltage: 0.9, region: 'capacitive' }), false);
+    const metrics = c.divergences.map((d) => d.metric);
+    expect(metrics).toContain('zvs');
+    expect(metrics).toContain('region');
+    expect(c.divergences.find((d) => d.metric === 'zvs')!.reason).toMatch(/loses ZVS/);
+  });
+
+  it('fixed frequency: fs is information only; regulated: vout is information only', () => {
+    const fixed = compareCorner(design, fha, sim({ fs: fha.fs! * 1.2 }), false);
+    expect(fixed.rows.find((r) => r.metric === 'fs')!.verdict).toBe('info');
+    const reg = compareCorner(design, fha, sim({ vout: fha.vout! * 1.2 }), true);
+    expect(reg.rows.find((r) => r.metric === 'vout')!.verdict).toBe('info');
+  });
+});
