@@ -5,6 +5,7 @@ import type { Results, WaveformExcerpt } from '../report/types.js';
 import { renderHtmlReport } from '../report/html/index.js';
 import { writeFilesAtomic } from '../run/files.js';
 import { UsageError } from './exit.js';
+import { loadDesign } from '../design/index.js';
 
 /** `tankcheck report results.json -o report.html`: the HTML report from saved results. */
 export async function reportCommand(file: string, o: { out: string; design?: string; waveforms?: string },
@@ -23,8 +24,17 @@ export async function reportCommand(file: string, o: { out: string; design?: str
   } catch {
     if (o.waveforms) throw new UsageError(`${wfile}: cannot read waveforms`);
   }
-  const designFile = o.design ?? results.design.file ?? undefined;
-  const design = designFile ? await load(designFile).catch(() => undefined) : undefined;
+  // The design gives the FHA curves. An explicit --design must load; the file named in the results
+  // is tried as written and beside the results file, and the report goes without curves if absent.
+  let design: Design | undefined;
+  if (o.design) design = await load(o.design);
+  else if (results.design.file) {
+    for (const candidate of [results.design.file, join(dirname(file), results.design.file)]) {
+      const r = await loadDesign(candidate).catch(() => undefined);
+      if (r?.ok) { design = r.design; break; }
+    }
+    if (!design) process.stderr.write(`note: design file ${results.design.file} not found; the report shows points without FHA curves (use --design)\n`);
+  }
   await writeFilesAtomic([{ path: o.out, text: renderHtmlReport({ results, waveforms, design }) }]);
   process.stdout.write(`wrote ${o.out}\n`);
 }

@@ -12,14 +12,14 @@ const CELL_LIST_MAX = 4;
 
 const diverges = (c: CornerResult, metric: string) => c.comparison.some((r) => r.metric === metric && r.verdict === 'diverged');
 
-/** ZVS state as text: simulated when there is a simulation, else FHA (marked), with FHA disagreement noted. */
+/** ZVS state as text: simulated when there is a simulation (FHA disagreement noted), else FHA's. */
 export function zvsText(c: CornerResult): string {
   if (c.sim) {
     const state = c.sim.zvsState ?? (c.sim.zvs ? 'zvs' : 'hard');
     const t = state === 'zvs' ? 'ZVS ok' : state === 'partial' ? 'ZVS partial' : 'ZVS lost';
     return diverges(c, 'zvs') ? `${t} (FHA: ${c.fha.zvs ? 'ok' : 'lost'})` : t;
   }
-  return c.fha.zvs === null || c.fha.zvs === undefined ? 'ZVS n/a' : `ZVS ${c.fha.zvs ? 'ok' : 'lost'} (FHA)`;
+  return c.fha.zvs === null || c.fha.zvs === undefined ? 'ZVS n/a' : `ZVS ${c.fha.zvs ? 'ok' : 'lost'}`;
 }
 
 /** Rectifier ZCS as text, same rules as zvsText. */
@@ -28,7 +28,7 @@ export function zcsText(c: CornerResult): string {
     const t = c.sim.zcs ? 'ZCS ok' : 'ZCS lost';
     return diverges(c, 'zcs') ? `${t} (FHA: ${c.fha.zcs ? 'ok' : 'lost'})` : t;
   }
-  return c.fha.zcs === null || c.fha.zcs === undefined ? 'ZCS n/a' : `ZCS ${c.fha.zcs ? 'ok' : 'lost'} (FHA)`;
+  return c.fha.zcs === null || c.fha.zcs === undefined ? 'ZCS n/a' : `ZCS ${c.fha.zcs ? 'ok' : 'lost'}`;
 }
 
 function worst(cs: CornerResult[]): string {
@@ -40,7 +40,7 @@ function item(c: CornerResult, withFs: boolean): string {
   const n = c.divergences.length;
   const fs = withFs ? `<b>${c.inputs.fs === null ? 'regulated' : `${num(c.inputs.fs, 4, 1e3)} kHz`}</b> ` : '';
   return `<a href="#${rowAnchor(c.id)}" title="${esc(c.id)}">${fs}<span class="v">${esc(statusText(c.status))}${n ? ` (${n})` : ''}</span>`
-    + `<span class="sw">${esc(zvsText(c))} · ${esc(zcsText(c))}</span></a>`;
+    + `<span class="sw">${c.sim ? '' : 'FHA: '}${esc(zvsText(c))} · ${esc(zcsText(c))}</span></a>`;
 }
 
 function cell(cs: CornerResult[]): string {
@@ -91,6 +91,6 @@ function grid(cs: CornerResult[], design?: Design): string {
 export function renderCornerMap(results: Results, design?: Design): string {
   if (results.corners.length === 0) return '<p>No corners.</p>';
   const key = Object.entries(STATUS_STYLE).map(([s, v]) => `<span class="st-${s}">${v.symbol} ${v.label}</span>`).join(' ');
-  return `<p class="caption">Each cell: verdict (number of diverged metrics in brackets), then ZVS of the bridge switches and ZCS of the rectifier, simulated where a simulation exists, otherwise FHA (marked). Cells link to the table rows.</p>`
+  return `<p class="caption">Each cell: verdict (number of diverged metrics in brackets), then ZVS of the bridge switches and ZCS of the rectifier, simulated where a simulation exists, otherwise FHA's (marked FHA:). Cells link to the table rows.</p>`
     + `<p class="legend key">${key}</p><div class="maps">${tankGroups(results.corners).map((g) => grid(g, design)).join('')}</div>`;
 }

@@ -51,6 +51,8 @@ function curveLabels(d: GainFigureData, p: GainPanel, sy: Scale, w: number): str
     .filter((l): l is { c: GainPanel['curves'][number]; y: number } => typeof l.y === 'number' && l.y > d.gainAxis.d0 && l.y < d.gainAxis.d1)
     .map((l) => ({ c: l.c, y: sy(l.y) + 12 })).sort((a, b) => a.y - b.y);
   for (let i = 1; i < labels.length; i++) labels[i]!.y = Math.max(labels[i]!.y, labels[i - 1]!.y + 11);
+  const bottom = sy(d.gainAxis.d0) - 3;
+  for (let i = labels.length - 1; i >= 0; i--) labels[i]!.y = Math.min(labels[i]!.y, i === labels.length - 1 ? bottom : labels[i + 1]!.y - 11);
   return labels.map(({ c, y }) => `<text class="curve-label" x="${w - 3}" y="${px(y)}" text-anchor="end" style="fill:${seriesColour(c.load)}">${esc(d.loads[c.load]!.label)}</text>`).join('');
 }
 
@@ -70,7 +72,7 @@ function panelSvg(d: GainFigureData, p: GainPanel): string {
   if (d.fr !== null) inner.push(vline(sx(d.fr), h, 'fr'));
   if (d.fp !== null && d.fp > d.fsAxis.d0) inner.push(vline(sx(d.fp), h, 'fp'));
   if (p.target !== null) {
-    inner.push(`<path class="target" d="M0 ${px(sy(p.target))}h${w}"/><text class="marker" x="${w - 4}" y="${px(sy(p.target) - 4)}" text-anchor="end">gain for the Vout set point</text>`);
+    inner.push(`<path class="target" d="M0 ${px(sy(p.target))}h${w}"/>`);
   }
   for (const c of p.curves) {
     const dash = seriesDash(c.load);
@@ -99,11 +101,18 @@ function voutTicks(v: { perGain: number; drop: number }, g0: number, g1: number)
 }
 
 function legend(d: GainFigureData): string {
-  const sw = (i: number) => `<svg class="sw" viewBox="0 0 28 10" aria-hidden="true"><path d="M1 5h26" stroke="${seriesColour(i)}"${seriesDash(i) ? ` stroke-dasharray="${seriesDash(i)}"` : ''}/></svg>`;
-  const loads = d.loads.map((l, i) => `<span>${sw(i)}load ${esc(l.label)}</span>`).join('');
-  return `<p class="legend">${loads}<span><svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><circle cx="6" cy="6" r="4" class="pt-fha" stroke="#333"/></svg>FHA operating point</span>`
-    + `<span><svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><path d="M6 1.5l4.5 4.5-4.5 4.5-4.5-4.5z" fill="#333"/></svg>simulated operating point (thin line: the gap to FHA)</span>`
-    + (d.hasDesign ? '<span><svg class="sw" viewBox="0 0 28 10" aria-hidden="true"><path class="boundary" d="M1 5h26"/></svg>zero-phase boundary</span>' : '') + '</p>';
+  const line = (attrs: string) => `<svg class="sw" viewBox="0 0 28 10" aria-hidden="true"><path d="M1 5h26" ${attrs}/></svg>`;
+  const dash = (i: number) => (seriesDash(i) ? ` stroke-dasharray="${seriesDash(i)}"` : '');
+  const pts = d.panels.flatMap((p) => p.points);
+  const items = [
+    ...d.loads.map((l, i) => `${d.hasDesign ? line(`stroke="${seriesColour(i)}"${dash(i)}`)
+      : `<svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><rect x="2" y="2" width="8" height="8" fill="${seriesColour(i)}"/></svg>`}load ${esc(l.label)}`),
+    pts.some((p) => p.fha) ? '<svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><circle cx="6" cy="6" r="4" class="pt-fha" stroke="#333"/></svg>FHA operating point' : '',
+    pts.some((p) => p.sim) ? '<svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><path d="M6 1.5l4.5 4.5-4.5 4.5-4.5-4.5z" fill="#333"/></svg>simulated operating point (thin line: the gap to FHA)' : '',
+    d.panels.some((p) => p.target !== null) ? `${line('stroke="#777" stroke-dasharray="1 3"')}gain the Vout set point needs` : '',
+    d.hasDesign ? `${line('class="boundary"')}zero-phase boundary` : '',
+  ];
+  return `<p class="legend">${items.filter(Boolean).map((x) => `<span>${x}</span>`).join('')}</p>`;
 }
 
 /** The whole section body: caption, panels and legend. */

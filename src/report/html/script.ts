@@ -1,6 +1,7 @@
 /**
- * Inline page script (vanilla, no data): sorts the comparison table on a header click and hides
- * rows by status through classes on the table. Cells sort by data-s when present, else by their text.
+ * Inline page script (vanilla, no data): sorts the comparison table on a header click, opens a row's notes, hides rows
+ * by status through classes on the table (cells sort by data-s when present, else by their text),
+ * and draws the collapsed waveform figures from their <template> when that block is opened.
  */
 export const SCRIPT = `(function () {
   var table = document.getElementById('cmp');
@@ -34,6 +35,12 @@ export const SCRIPT = `(function () {
     rows.forEach(function (x) { frag.appendChild(x.r); });
     body.appendChild(frag);
   });
+  body.addEventListener('click', function (e) {
+    var b = e.target.closest ? e.target.closest('button.more') : null;
+    if (!b) return;
+    var open = b.parentNode.classList.toggle('open');
+    b.setAttribute('aria-expanded', String(open));
+  });
   function update() {
     var hidden = 0;
     boxes.forEach(function (box) {
@@ -43,4 +50,27 @@ export const SCRIPT = `(function () {
     if (count) count.textContent = (total - hidden) + ' of ' + total + ' corners shown';
   }
   boxes.forEach(function (box) { box.addEventListener('change', update); });
+})();
+(function () {
+  var more = document.getElementById('more-waves');
+  if (!more) return;
+  function draw() {
+    var t = more.querySelector('template');
+    if (t) t.replaceWith(t.content);
+  }
+  more.addEventListener('toggle', function () { if (more.open) draw(); });
+  function reveal(id) {
+    var t = more.querySelector('template');
+    if (id && !document.getElementById(id) && t && t.content.getElementById(id)) { more.open = true; draw(); }
+  }
+  document.addEventListener('click', function (e) {
+    var a = e.target.closest ? e.target.closest('a[href^="#w-"]') : null;
+    if (a) reveal(a.getAttribute('href').slice(1));
+  });
+  if (location.hash.length > 1) {
+    var id = decodeURIComponent(location.hash.slice(1));
+    reveal(id);
+    var el = document.getElementById(id);
+    if (el) el.scrollIntoView();
+  }
 })();`;

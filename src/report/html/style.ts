@@ -66,9 +66,9 @@ svg.plot .ptitle{font-size:11px;font-weight:600}
 .maps{display:flex;flex-wrap:wrap;gap:10px 24px}
 figure{margin:0}
 figure.map figcaption{font-size:12.5px;font-weight:600;margin:6px 0 4px}
-table.map th,table.map td{border:1px solid var(--line);padding:0;font-size:12.5px;vertical-align:top}
+table.map th,table.map td{border:1px solid var(--line);padding:0;font-size:12px;vertical-align:top}
 table.map th{padding:4px 8px;background:var(--soft);font-weight:600}
-table.map td a{display:block;padding:4px 8px;color:inherit;text-decoration:none;min-width:130px}
+table.map td a{display:block;padding:3px 7px;color:inherit;text-decoration:none;min-width:110px}
 table.map td a+a{border-top:1px dashed var(--line)}
 table.map td a:hover{text-decoration:underline}
 table.map .v{display:block;font-weight:600}table.map .sw{display:block;font-size:11.5px}
@@ -83,6 +83,8 @@ table.cmp thead th{background:var(--soft);border-bottom:1px solid var(--line);te
 table.cmp tbody th{text-align:left;font-weight:600;position:sticky;left:0;background:#fff;z-index:1;border-right:1px solid var(--line)}
 table.cmp .grp{border-left:1px solid var(--line)}
 table.cmp td.st{text-align:left}
+table.cmp td.pair{text-align:center}
+table.cmp thead tr:first-child th:first-child{position:sticky;left:0;z-index:2}
 table.cmp button{all:unset;cursor:pointer;padding:0 2px}
 table.cmp button:hover,table.cmp button:focus-visible{text-decoration:underline;outline:1px dotted}
 table.cmp th[aria-sort=ascending] button::after{content:" ▴"}
@@ -91,8 +93,11 @@ table.cmp td.info{color:var(--muted)}
 table.cmp td.flag{font-weight:700;background:#fbe4d3;color:#7a3400;box-shadow:inset 0 0 0 1px #c56a2a}
 .mark{margin-left:2px;font-size:10px}
 table.cmp td.notes{text-align:left;white-space:normal;min-width:120px;max-width:520px}
-table.cmp td.notes summary{cursor:pointer;color:var(--muted)}
-table.cmp td.notes ul{margin:4px 0;padding-left:16px;font-size:11.5px;width:480px}
+table.cmp td.notes button.more{color:#0b4f7a;text-decoration:underline dotted}
+table.cmp td.notes button.more::before{content:"▸ "}
+table.cmp td.notes.open button.more::before{content:"▾ "}
+table.cmp td.notes ul{display:none;margin:4px 0;padding-left:16px;font-size:11.5px;width:480px}
+table.cmp td.notes.open ul{display:block}
 table.cmp td.notes pre{white-space:pre-wrap;font-size:10.5px}
 table.cmp tr:target th,table.cmp tr:target td{outline:2px solid #0072B2;outline-offset:-2px}
 a.wl{text-decoration:none;font-weight:400}
@@ -110,7 +115,8 @@ ${HIDE_CSS}
 @media print{
   body{max-width:none;padding:0;font-size:10pt}nav,.filter{display:none}
   h2{break-after:avoid}svg.plot,figure,table.map{break-inside:avoid}
-  .tablewrap{overflow:visible;border:none}table.cmp{font-size:7pt}
+  .tablewrap{overflow:visible;border:none}table.cmp{font-size:6.5pt}table.cmp td.notes ul{display:none}
+  table.cmp td.notes button.more::before{content:none}.waves{grid-template-columns:repeat(2,1fr)}
   a{color:inherit;text-decoration:none}
 }
 `;

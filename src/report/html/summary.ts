@@ -7,8 +7,8 @@ import { METRIC_NAMES } from './table.js';
 
 function counts(results: Results): string {
   const n = (s: string) => results.corners.filter((c) => c.status === s).length;
-  const item = (s: (typeof STATUS_ORDER)[number], extra = '') =>
-    `<li class="st-${s}${n(s) ? '' : ' none'}"><span class="big">${n(s)}</span> ${STATUS_STYLE[s].symbol} ${STATUS_STYLE[s].label}${extra}</li>`;
+  const item = (s: (typeof STATUS_ORDER)[number]) =>
+    `<li class="st-${s}${n(s) ? '' : ' none'}"><span class="big">${n(s)}</span> ${STATUS_STYLE[s].symbol} ${STATUS_STYLE[s].label}</li>`;
   return `<ul class="counts">${STATUS_ORDER.map((s) => item(s)).join('')}<li><span class="big">${results.corners.length}</span> corners in all</li></ul>`;
 }
 

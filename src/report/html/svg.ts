@@ -52,22 +52,55 @@ export function px(v: number): string {
 
 /**
  * Path data through (xs[i], ys[i]); a null or non-finite y breaks the line. Pixel y is clamped to
- * [-limit, limit] so a curve far off the chart stays a small number (the plot area clips it).
+ * [-limit, limit] so a curve far off the chart stays a small number (the plot area clips it). Each
+ * run is simplified (Ramer-Douglas-Peucker) to `tolerance` pixels, which keeps the drawing within
+ * that distance of the data while flat and straight stretches shrink to a few points.
  */
-export function linePath(xs: readonly number[], ys: readonly (number | null)[], sx: Scale, sy: Scale, limit = 5000): string {
-  let d = '';
-  let pen = false;
+export function linePath(xs: readonly number[], ys: readonly (number | null)[], sx: Scale, sy: Scale, tolerance = 0.25, limit = 5000): string {
+  const parts: string[] = [];
+  let run: number[] = [];
+  const flush = () => {
+    const keep = simplify(run, tolerance);
+    for (let k = 0; k < keep.length; k++) parts.push(`${k === 0 ? 'M' : 'L'}${px(run[2 * keep[k]!]!)} ${px(run[2 * keep[k]! + 1]!)}`);
+    run = [];
+  };
   for (let i = 0; i < xs.length; i++) {
     const y = ys[i];
     if (y === null || y === undefined || !Number.isFinite(y) || !Number.isFinite(xs[i]!)) {
-      pen = false;
+      flush();
       continue;
     }
-    const Y = Math.min(Math.max(sy(y), -limit), limit);
-    d += `${pen ? 'L' : 'M'}${px(sx(xs[i]!))} ${px(Y)}`;
-    pen = true;
+    run.push(sx(xs[i]!), Math.min(Math.max(sy(y), -limit), limit));
   }
-  return d;
+  flush();
+  return parts.join('');
+}
+
+/** Indices of the points (flat x,y pairs) that Ramer-Douglas-Peucker keeps at this tolerance, in order. */
+export function simplify(flat: readonly number[], tolerance: number): number[] {
+  const n = flat.length / 2;
+  if (n <= 2) return Array.from({ length: n }, (_, i) => i);
+  const keep = new Uint8Array(n);
+  keep[0] = keep[n - 1] = 1;
+  const stack: [number, number][] = [[0, n - 1]];
+  while (stack.length) {
+    const [a, b] = stack.pop()!;
+    const ax = flat[2 * a]!, ay = flat[2 * a + 1]!, dx = flat[2 * b]! - ax, dy = flat[2 * b + 1]! - ay;
+    const len = Math.hypot(dx, dy) || 1;
+    let worst = -1;
+    let far = tolerance;
+    for (let i = a + 1; i < b; i++) {
+      const dist = Math.abs(dy * (flat[2 * i]! - ax) - dx * (flat[2 * i + 1]! - ay)) / len;
+      if (dist > far) { far = dist; worst = i; }
+    }
+    if (worst >= 0) {
+      keep[worst] = 1;
+      stack.push([a, worst], [worst, b]);
+    }
+  }
+  const out: number[] = [];
+  keep.forEach((k, i) => { if (k) out.push(i); });
+  return out;
 }
 
 export interface AxisSpec {

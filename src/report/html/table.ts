@@ -29,7 +29,7 @@ export const METRIC_NAMES: Record<string, string> = {
 
 /** Columns before the metric triples and after them; indices are what the sort buttons carry. */
 const LEAD = ['corner', 'Vin V', 'load', 'status'];
-const TAIL = ['ZVS FHA/sim', 'ZCS FHA/sim', 'region FHA/sim', 'mode', 'notes'];
+const TAIL = ['ZVS<br><small>FHA/sim</small>', 'ZCS<br><small>FHA/sim</small>', 'region<br><small>FHA/sim</small>', 'mode', 'notes'];
 
 const sortButton = (col: number, text: string) => `<button type="button" data-col="${col}">${text}</button>`;
 const FLAG = '<span class="mark" aria-label="beyond tolerance">▲</span>';
@@ -39,7 +39,7 @@ function header(): string {
   const top = [
     ...LEAD.map((h, i) => `<th rowspan="2" scope="col">${sortButton(i, esc(h))}</th>`),
     ...TABLE_METRICS.map((m) => `<th colspan="3" scope="colgroup" class="grp">${esc(m.label)}${m.unit ? ` <small>${esc(m.unit)}</small>` : ''}</th>`),
-    ...TAIL.map((h, i) => `<th rowspan="2" scope="col">${sortButton(LEAD.length + 3 * TABLE_METRICS.length + i, esc(h))}</th>`),
+    ...TAIL.map((h, i) => `<th rowspan="2" scope="col">${sortButton(LEAD.length + 3 * TABLE_METRICS.length + i, h)}</th>`),
   ];
   const sub = TABLE_METRICS.flatMap((_, k) => ['FHA', 'sim', 'err'].map((h, j) =>
     `<th scope="col"${j === 0 ? ' class="grp"' : ''}>${sortButton(LEAD.length + 3 * k + j, h)}</th>`));
@@ -72,8 +72,8 @@ function pair(c: CornerResult, metric: 'zvs' | 'zcs' | 'region'): string {
   let s = r ? r.sim : null;
   if (metric === 'zvs' && c.sim?.zvsState === 'partial') s = 'partial';
   const text = `${show(r ? r.fha : c.fha[metric], metric)}/${show(s, metric)}`;
-  if (r?.verdict !== 'diverged') return `<td>${esc(text)}</td>`;
-  return `<td class="flag" title="${esc(r.reason ?? 'FHA and simulation disagree')}">${esc(text)}${FLAG}</td>`;
+  if (r?.verdict !== 'diverged') return `<td class="pair">${esc(text)}</td>`;
+  return `<td class="pair flag" title="${esc(r.reason ?? 'FHA and simulation disagree')}">${esc(text)}${FLAG}</td>`;
 }
 
 function notes(c: CornerResult): string {
@@ -86,7 +86,7 @@ function notes(c: CornerResult): string {
   if (!items.length) return '<td class="notes"></td>';
   const what = [c.divergences.length ? `${c.divergences.length} diverged` : '', c.failure ? 'failure' : '', c.fha.warnings?.length ? `${c.fha.warnings.length} FHA note${c.fha.warnings.length > 1 ? 's' : ''}` : '']
     .filter(Boolean).join(', ') || 'details';
-  return `<td class="notes" data-s="${c.divergences.length}"><details><summary>${esc(what)}</summary><ul>${items.join('')}</ul></details></td>`;
+  return `<td class="notes" data-s="${c.divergences.length}"><button type="button" class="more" aria-expanded="false">${esc(what)}</button><ul>${items.join('')}</ul></td>`;
 }
 
 function row(c: CornerResult, waveIds: Set<string>): string {
@@ -96,7 +96,7 @@ function row(c: CornerResult, waveIds: Set<string>): string {
     + `<td>${esc(num(c.inputs.vin))}</td><td data-s="${finite(c.inputs.pout) ?? ''}">${esc(c.inputs.loadLabel)}</td>`
     + `<td class="st st-${st ?? 'unknown'}" data-s="${st ? STATUS_ORDER.indexOf(st) : 9}">${esc(statusText(c.status))}</td>`
     + TABLE_METRICS.map((m) => triple(c, m)).join('')
-    + pair(c, 'zvs') + pair(c, 'zcs') + pair(c, 'region') + `<td>${esc(c.sim?.mode ?? '')}</td>${notes(c)}</tr>`;
+    + pair(c, 'zvs') + pair(c, 'zcs') + pair(c, 'region') + `<td class="pair">${esc(c.sim?.mode ?? '')}</td>${notes(c)}</tr>`;
 }
 
 function filter(results: Results): string {
@@ -109,6 +109,6 @@ function filter(results: Results): string {
 
 /** Section body: the status filter and the table (one row per corner, id anchors `c-<id>`). */
 export function renderTable(results: Results, waveIds: Set<string>): string {
-  return `${filter(results)}<p class="caption">FHA, simulated value and error (sim − FHA)/|FHA| per metric. ${FLAG} marks an error beyond its tolerance (hover for the reason, or open the notes); ? marks an error whose sign FHA theory rules out. ZVS/ZCS/region as FHA/sim. Click a column header to sort (error columns sort by size); ≋ links to the waveforms.</p>`
+  return `${filter(results)}<p class="caption">FHA, simulated value and error (sim − FHA)/|FHA| per metric. ${FLAG} marks an error beyond its tolerance (hover for the reason, or click the notes); ? marks an error whose sign FHA theory rules out. ZVS/ZCS/region as FHA/sim. Click a column header to sort (error columns sort by size); ≋ links to the waveforms.</p>`
     + `<div class="tablewrap"><table class="cmp" id="cmp">${header()}<tbody>${results.corners.map((c) => row(c, waveIds)).join('')}</tbody></table></div>`;
 }

@@ -19,11 +19,6 @@ export const WAVE_PANELS: PanelDef[] = [
   { title: 'Output voltage', unit: 'V', keys: (ex) => ['vout'].filter((k) => has(ex, k)), label: (k) => LABELS[k] ?? k },
 ];
 
-/** Number of series a figure draws for an excerpt. */
-export function waveSeriesCount(ex: WaveformExcerpt): number {
-  return WAVE_PANELS.reduce((n, p) => n + p.keys(ex).length, 0);
-}
-
 /** Corners that get a figure: the nominal corner (first id ending in _nom, else the first), then every diverged one. */
 export function waveformCorners(results: Results): CornerResult[] {
   const nominal = results.corners.find((c) => c.id.endsWith('_nom')) ?? results.corners[0];
@@ -37,6 +32,14 @@ const GAP = 24;
 const L = 52;
 const R = 12;
 const TOP = 22;
+
+/** Smallest and largest finite value over the arrays; [0, 1] when there is none. */
+function extent(arrays: number[][]): [number, number] {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const a of arrays) for (const v of a) if (Number.isFinite(v)) { if (v < lo) lo = v; if (v > hi) hi = v; }
+  return lo <= hi ? [lo, hi] : [0, 1];
+}
 
 /** Swatch + label per series, right-aligned above a panel (label widths estimated at 6 px a character). */
 function legend(labels: string[], y: number): string {
@@ -56,8 +59,7 @@ function legend(labels: string[], y: number): string {
 /** One corner's multi-panel SVG; data-series counts the drawn series. */
 export function waveSvg(ex: WaveformExcerpt): string {
   const w = W - L - R;
-  const t = ex.t.filter((v) => Number.isFinite(v));
-  const tEnd = t.length ? Math.max(...t) : 1;
+  const tEnd = extent([ex.t])[1] || 1;
   const sx = linearScale(0, tEnd, 0, w);
   const xTicks = ticksIn(0, tEnd, niceStep(0, tEnd, 8));
   const edges = (ex.edges ?? []).filter((e) => finite(e) !== null && e >= 0 && e <= tEnd);
@@ -67,8 +69,8 @@ export function waveSvg(ex: WaveformExcerpt): string {
   WAVE_PANELS.forEach((p, i) => {
     const y0 = TOP + i * (PH + GAP);
     const keys = p.keys(ex);
-    const vals = keys.flatMap((k) => ex.series[k]!.filter((v) => Number.isFinite(v)));
-    const dom = niceDomain(vals.length ? Math.min(...vals) : 0, vals.length ? Math.max(...vals) : 1, 3);
+    const [lo, hi] = extent(keys.map((k) => ex.series[k]!));
+    const dom = niceDomain(lo, hi, 3);
     const sy = linearScale(dom.d0, dom.d1, PH, 0);
     const last = i === WAVE_PANELS.length - 1;
     out.push(frame({ x: L, y: y0, w, h: PH, xLabels: last,
@@ -97,8 +99,11 @@ function figure(c: CornerResult, ex: WaveformExcerpt | undefined, nominal: boole
   return `<figure class="wave" id="${waveAnchor(c.id)}"><figcaption><a href="#${rowAnchor(c.id)}">${esc(c.id)}</a> · ${facts}</figcaption>${body}</figure>`;
 }
 
-/** Figures shown open; the rest sit in one collapsed block so a large study still opens fast. */
-export const WAVES_OPEN = 12;
+/**
+ * Figures drawn at load; the rest sit in a collapsed block as an inert <template> that the page
+ * script draws when the block is opened, so a large study still opens fast.
+ */
+export const WAVES_OPEN = 8;
 
 /** Section body. */
 export function renderWaveforms(results: Results, waveforms: WaveformExcerpt[]): string {
@@ -109,6 +114,6 @@ export function renderWaveforms(results: Results, waveforms: WaveformExcerpt[]):
   const caption = '<p class="caption">The last two switching cycles of the measurement window, for the nominal corner and every diverged corner. Signs: tank current positive from the bridge into Lr; v(Cr) bridge side minus transformer side; ▾ and the faint vertical lines mark the high-side gate turn-on edges.</p>';
   const open = figs.slice(0, WAVES_OPEN).join('');
   const rest = figs.length > WAVES_OPEN
-    ? `<details class="more"><summary>${figs.length - WAVES_OPEN} more corners</summary><div class="waves">${figs.slice(WAVES_OPEN).join('')}</div></details>` : '';
+    ? `<details class="more" id="more-waves"><summary>${figs.length - WAVES_OPEN} more diverged corners (open to draw)</summary><template><div class="waves">${figs.slice(WAVES_OPEN).join('')}</div></template></details>` : '';
   return `${caption}<div class="waves">${open}</div>${rest}`;
 }
