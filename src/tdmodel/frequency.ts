@@ -14,7 +14,8 @@ export interface FrequencyOptions {
 }
 
 /**
- * Switching frequency at which the steady state with load rl (ohm) gives voTarget (V), searched
+ * Switching frequency at which the steady state with load rl (ohm) gives voTarget (V) (p.fs is
+ * ignored), searched
  * from fsGuess (Hz, e.g. the FHA result) on the inductive branch: the tank current is positive
  * at the high-side turn-off and the output falls with rising fs. Steps outwards by growing
  * factors until the target is bracketed, then Brent's method. Returns fs null with the reason

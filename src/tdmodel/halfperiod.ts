@@ -2,18 +2,14 @@ import { decideRect, setCircuitClamp, type BridgeKind, type Circuit } from './mo
 import { evalState, expand, newPoly, project, scalarIntegral, type Poly } from './taylor.js';
 import { firstCrossing } from './crossing.js';
 import { accumulate, type HalfStats } from './stats.js';
+import { floatVoltage, guardsFor, pinnedSlope, RECT_GUARDS, type Bridge, type Guard, type GuardId } from './guards.js';
 import type { RectMode } from './types.js';
 
-/** Bridge state in the first half period: dead-time clamps, free swing, or high side on. */
-export type Bridge = 'clampL' | 'clampH' | 'free' | 'on';
-
-type GuardId = 'secP' | 'secN' | 'oUp' | 'oLow' | 'nodeHigh' | 'nodeLow' | 'exitH' | 'exitL';
-interface Guard { w: number[]; e: number; id: GuardId }
+export type { Bridge };
 
 const W_SEC = [1, -1, 0, 0];
 const MAX_EVENTS = 400;
 const MAX_STEPS = 200_000;
-const RECT_GUARDS = new Set<GuardId>(['secP', 'secN', 'oUp', 'oLow']);
 
 /**
  * Integrates the normalized circuit over the half period [0, T/2) that starts at the low-side
@@ -25,11 +21,10 @@ export class HalfPeriod {
   private readonly g = new Float64Array(80);
   private readonly x = new Float64Array(4);
   private readonly guards = new Map<string, Guard[]>();
-
-  constructor(readonly c: Circuit) {}
-
   /** Integral of |i_sec| over the last run (normalized), for the output current. */
   absSec = 0;
+
+  constructor(readonly c: Circuit) {}
 
   /** Changes the output clamp n (Vo + V_drop) / Vin of the circuit. */
   setClamp(vc: number): void {
@@ -56,7 +51,10 @@ export class HalfPeriod {
       const tEnd = bridge === 'on' ? c.half : c.td;
       if (t >= tEnd) {
         if (bridge === 'on') break;
-        if (stats) { stats.vAtGate = x[3]; stats.irAtGate = x[0]; stats.hardDv = c.vh - x[3]; }
+        if (bridge === 'float') x[3] = floatVoltage(c, x, rect);
+        if (stats) {
+          Object.assign(stats, { vAtGate: x[3], irAtGate: x[0], railAtGate: bridge === 'clampH', hardDv: c.ce > 0 ? c.vh - x[3] : 0 });
+        }
         x[3] = c.vh;
         bridge = 'on';
         rect = redecide(c, x, bridge, rect);
@@ -68,7 +66,7 @@ export class HalfPeriod {
       expand(sys.a, sys.b, x, h, poly);
       let tau = h;
       let hit: GuardId | null = null;
-      for (const gd of this.guardList(bridge, rect)) {
+      for (const gd of this.guardList(bridge, rect) as Guard[]) {
         project(poly, gd.w, gd.e, this.g);
         const r = firstCrossing(this.g, poly.order, tau, zeroRun >= 2);
         if (r !== null && r < tau) { tau = r; hit = gd.id; }
@@ -98,13 +96,15 @@ export class HalfPeriod {
         case 'oLow': rect = 'N'; break;
         case 'nodeHigh': bridge = 'clampH'; x[3] = c.vh; if (stats && stats.zvsTime === null) stats.zvsTime = t; break;
         case 'nodeLow': bridge = 'clampL'; x[3] = c.vl; break;
-        case 'exitH': bridge = c.ce > 0 ? 'free' : 'clampL'; if (c.ce === 0) x[3] = c.vl; break;
-        case 'exitL':
-          bridge = c.ce > 0 ? 'free' : 'clampH';
-          if (c.ce === 0) { x[3] = c.vh; if (stats && stats.zvsTime === null) stats.zvsTime = t; }
+        case 'exitH': case 'exitL': {
+          const from: 'clampL' | 'clampH' = hit === 'exitH' ? 'clampH' : 'clampL';
+          bridge = c.ce > 0 ? 'free' : this.leaveClamp(x, rect, from, stats, t);
           break;
+        }
+        case 'floatHigh': bridge = 'clampH'; x[3] = c.vh; if (stats && stats.zvsTime === null) stats.zvsTime = t; break;
+        case 'floatLow': bridge = 'clampL'; x[3] = c.vl; break;
       }
-      if (hit.startsWith('node') || hit.startsWith('exit')) rect = redecide(c, x, bridge, rect);
+      if (!RECT_GUARDS.has(hit)) rect = redecide(c, x, bridge, rect);
     }
     if (stats) this.absSec = stats.absSec;
     return [x[0], x[1], x[2] - c.vdc];
@@ -119,29 +119,33 @@ export class HalfPeriod {
   private guardList(bridge: Bridge, rect: RectMode): Guard[] {
     const key = bridge + rect;
     let list = this.guards.get(key);
-    if (list) return list;
-    const { k, vc } = this.c;
-    const rs = bridge === 'free' ? 0 : this.c.rs;
-    list = [];
-    if (rect === 'P') list.push({ w: [1, -1, 0, 0], e: 0, id: 'secP' });
-    if (rect === 'N') list.push({ w: [-1, 1, 0, 0], e: 0, id: 'secN' });
-    if (rect === 'O') {
-      list.push({ w: [k * rs, 0, k, -k], e: vc, id: 'oUp' });
-      list.push({ w: [-k * rs, 0, -k, k], e: vc, id: 'oLow' });
-    }
-    if (bridge === 'free') {
-      list.push({ w: [0, 0, 0, -1], e: this.c.vh, id: 'nodeHigh' });
-      list.push({ w: [0, 0, 0, 1], e: -this.c.vl, id: 'nodeLow' });
-    }
-    if (bridge === 'clampH') list.push({ w: [-1, 0, 0, 0], e: 0, id: 'exitH' });
-    if (bridge === 'clampL') list.push({ w: [1, 0, 0, 0], e: 0, id: 'exitL' });
-    this.guards.set(key, list);
+    if (!list) this.guards.set(key, (list = guardsFor(this.c, bridge, rect)));
     return list;
+  }
+
+  /**
+   * Without node capacitance the tank current reached zero in a dead-time clamp: the other
+   * rail takes it if the current then grows towards that rail, otherwise the current stays at
+   * zero with the node floating between the rails.
+   */
+  private leaveClamp(x: Float64Array, rect: RectMode, from: 'clampL' | 'clampH', stats: HalfStats | null, t: number): Bridge {
+    const { c } = this;
+    const to = from === 'clampL' ? c.vh : c.vl;
+    const s = pinnedSlope(c, x, rect, to);
+    if (from === 'clampL' ? s < 0 : s > 0) {
+      x[3] = to;
+      if (from === 'clampL' && stats && stats.zvsTime === null) stats.zvsTime = t;
+      return from === 'clampL' ? 'clampH' : 'clampL';
+    }
+    x[0] = 0;
+    if (rect === 'O') x[1] = 0;
+    x[3] = floatVoltage(c, x, rect);
+    return 'float';
   }
 }
 
 function kind(b: Bridge): BridgeKind {
-  return b === 'free' ? 'free' : 'pin';
+  return b === 'free' || b === 'float' ? b : 'pin';
 }
 
 /** After a bridge change only O can become invalid (its Lm voltage depends on the bridge). */

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { solveHeldOutput } from './held.js';
 import { solveSteadyState } from './steady.js';
+import { modeLabel } from './result.js';
 import { loadForQ, params, rel, resonance } from './cases.test-support.js';
 
 // Ideal converter at fs = fr (method reference 2.5 and 3.1, [D]): during the whole half period
@@ -75,5 +76,15 @@ describe('held output', () => {
 
   it('rejects invalid parameters, listing every problem', () => {
     expect(() => solveHeldOutput(params({ lr: 0, n: -1, deadTime: 1e-5 }), 10)).toThrow(/lr must be > 0.*n must be > 0.*deadTime/);
+  });
+});
+
+describe('modeLabel', () => {
+  it('drops short intervals and merges equal neighbours (method reference 4.3 labelling)', () => {
+    const seg = (mode: 'P' | 'N' | 'O', start: number, end: number) => ({ mode, start, end });
+    const s = [seg('P', 0, 4e-6), seg('O', 4e-6, 4.01e-6), seg('P', 4.01e-6, 5e-6), seg('O', 5e-6, 5.5e-6)];
+    expect(modeLabel(s, 1e-7)).toBe('PO');
+    expect(modeLabel(s, 0)).toBe('POPO');
+    expect(modeLabel([], 0)).toBe('O');
   });
 });

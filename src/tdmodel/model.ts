@@ -37,8 +37,12 @@ export interface ModeSys {
   rho: number;
 }
 
-/** Bridge condition: pinned to a rail (switch or body diode) or free (charging the node). */
-export type BridgeKind = 'pin' | 'free';
+/**
+ * Bridge condition: pinned to a rail (switch or body diode), free (tank current charging the node
+ * capacitance), or float (no node capacitance and neither rail can carry the current: the tank
+ * current is held at zero and the node sits between the rails).
+ */
+export type BridgeKind = 'pin' | 'free' | 'float';
 
 /** Collects every invalid parameter; throws one RangeError listing them all. */
 export function checkParams(p: TdParams, vo: number): void {
@@ -59,10 +63,11 @@ export function normalize(p: TdParams, vo: number): Circuit {
   const z = Math.sqrt(p.lr / p.cr);
   const base = { v: p.vin, z, i: p.vin / z, t: Math.sqrt(p.lr * p.cr) };
   const lm = p.lm / p.lr;
+  const ce = (fb ? p.coss : 2 * p.coss) / p.cr;
   const c: Circuit = {
     lm,
-    // Below 1e-9 Cr the node swings at once on every scale resolved here: no capacitance.
-    ce: (fb ? p.coss : 2 * p.coss) / p.cr < 1e-9 ? 0 : (fb ? p.coss : 2 * p.coss) / p.cr,
+    // Below 1e-6 Cr the node swing (~1e-5 rad) and its energy are negligible: no capacitance.
+    ce: ce < 1e-6 ? 0 : ce,
     rs: (fb ? 2 * p.rdsOn : p.rdsOn) / z,
     rd: (p.n * p.n * nd * p.rd) / z,
     vc: (p.n * (vo + nd * p.vf)) / p.vin,
@@ -77,18 +82,18 @@ export function normalize(p: TdParams, vo: number): Circuit {
     srcFactor: fb ? 2 : 1,
     modes: new Map(),
   };
-  for (const bk of ['pin', 'free'] as const) for (const m of ['P', 'N', 'O'] as const) c.modes.set(bk + m, buildMode(c, bk, m));
+  for (const bk of ['pin', 'free', 'float'] as const) for (const m of ['P', 'N', 'O'] as const) c.modes.set(bk + m, buildMode(c, bk, m));
   return c;
 }
 
 /** Sets the Lm clamp voltage vc (normalized) and the P/N forcing terms that depend on it. */
 export function setCircuitClamp(c: Circuit, vc: number): void {
   c.vc = vc;
-  for (const bk of ['pin', 'free'] as const) {
+  for (const bk of ['pin', 'free', 'float'] as const) {
     for (const m of ['P', 'N'] as const) {
       const b = c.modes.get(bk + m)!.b;
       const v = m === 'P' ? vc : -vc;
-      b[0] = -v;
+      b[0] = bk === 'float' ? 0 : -v;
       b[1] = v / c.lm;
     }
   }
@@ -97,6 +102,14 @@ export function setCircuitClamp(c: Circuit, vc: number): void {
 function buildMode(c: Circuit, bk: BridgeKind, m: RectMode): ModeSys {
   const a = new Float64Array(16);
   const b = new Float64Array(4);
+  if (bk === 'float') {
+    // i_r = 0 and v_cr frozen; with a conducting rectifier Lm decays through the diode resistance.
+    if (m !== 'O') {
+      a[5] = -c.rd / c.lm;
+      b[1] = (m === 'P' ? c.vc : -c.vc) / c.lm;
+    }
+    return { a, b, rho: 1 + c.rd / c.lm };
+  }
   const rs = bk === 'pin' ? c.rs : 0;
   if (m === 'O') {
     const l = 1 + c.lm;
@@ -122,6 +135,7 @@ function buildMode(c: Circuit, bk: BridgeKind, m: RectMode): ModeSys {
 /** Lm voltage the O interval would have: k (v_b - R i_r - v_cr). */
 export function vmOpen(c: Circuit, x: ArrayLike<number>, bk: BridgeKind): number {
   const rs = bk === 'pin' ? c.rs : 0;
+  if (bk === 'float') return 0; // i_r = i_m = 0 held: no voltage on Lr or Lm
   return c.k * (x[3] - rs * x[0] - x[2]);
 }
 

@@ -27,10 +27,24 @@ export function labelSegments(c: Circuit, st: HalfStats): Segment[] {
   return out.map((s) => ({ mode: s.mode, start: s.start * c.base.t, end: s.end * c.base.t }));
 }
 
+/**
+ * Mode label of rectifier intervals, dropping those shorter than minDuration (s) and merging
+ * neighbours of equal state; use it to label with the same minimum as a measured waveform.
+ * 'O' if nothing is left.
+ */
+export function modeLabel(segments: Segment[], minDuration: number): string {
+  const kept: RectMode[] = [];
+  for (const s of segments) {
+    if (s.end - s.start < minDuration) continue;
+    if (kept[kept.length - 1] !== s.mode) kept.push(s.mode);
+  }
+  return kept.join('') || 'O';
+}
+
 /** Converts the converged normalized solution to SI results. */
 export function buildResult(
   p: TdParams, c: Circuit, vo: number, z: number[], st: HalfStats, iterations: number, usedFallback: boolean,
-): Omit<HeldOutputResult, never> {
+): HeldOutputResult {
   const { v, i, t } = c.base;
   const vi = v * i;
   const half = c.half;
@@ -39,7 +53,6 @@ export function buildResult(
   const secPeak = Math.max(st.secMax, -st.secMin, 0);
   const uMax = Math.max(st.vcrMax - c.vdc, c.vdc - st.vcrMin);
   const segments = labelSegments(c, st);
-  const hard = st.hardDv > 1e-12;
   const isec = (z[0] - z[1]) * i;
   const drop = c.nd * p.vf;
   const vinEff = p.inverter === 'full-bridge' ? p.vin : p.vin / 2;
@@ -62,7 +75,7 @@ export function buildResult(
     diodeCurrentAvg: ioRect / 2,
     lmVoltagePeakOpen: v * Math.max(st.vmMax, -st.vmMin, 0),
     outputRippleCurrentRms: Math.sqrt(Math.max(0, 2 * diodeRms * diodeRms - ioRect * ioRect)),
-    zvs: c.ce === 0 && c.td === 0 ? z[0] <= 0 : !hard,
+    zvs: c.ce === 0 && c.td === 0 ? z[0] <= 0 : st.railAtGate,
     bridgeVoltageAtGate: st.vAtGate * v,
     zvsTransitionTime: st.zvsTime === null ? null : st.zvsTime * t,
     power: {

@@ -1,6 +1,6 @@
 import { project, scalarIntegral, scalarRange, scalarSquareIntegral, type Poly } from './taylor.js';
 import type { RectMode } from './types.js';
-import type { Bridge } from './halfperiod.js';
+import type { Bridge } from './guards.js';
 
 /** Integrals and extremes over one half period [0, T/2), normalized units. */
 export interface HalfStats {
@@ -23,6 +23,8 @@ export interface HalfStats {
   vAtGate: number;
   irAtGate: number;
   hardDv: number;
+  /** The node was on the high rail (body diode conducting) at the gate edge. */
+  railAtGate: boolean;
   /** First time the node reached the high rail in the dead time, or null. */
   zvsTime: number | null;
   segments: { mode: RectMode; start: number; end: number }[];
@@ -33,7 +35,7 @@ export function newStats(): HalfStats {
     absSec: 0, sec2: 0, ir2: 0, pinIr2: 0, qH: 0, qL: 0,
     irMin: Infinity, irMax: -Infinity, imMin: Infinity, imMax: -Infinity,
     vcrMin: Infinity, vcrMax: -Infinity, secMin: Infinity, secMax: -Infinity, vmMin: Infinity, vmMax: -Infinity,
-    vAtGate: NaN, irAtGate: NaN, hardDv: 0, zvsTime: null, segments: [],
+    vAtGate: NaN, irAtGate: NaN, hardDv: 0, railAtGate: false, zvsTime: null, segments: [],
   };
 }
 
@@ -53,7 +55,7 @@ export function accumulate(
   project(p, W_IR, 0, g);
   const ir2 = scalarSquareIntegral(g, k, tau);
   s.ir2 += ir2;
-  if (bridge !== 'free') {
+  if (bridge !== 'free' && bridge !== 'float') {
     s.pinIr2 += ir2;
     if (bridge === 'clampL') s.qL += scalarIntegral(g, k, tau);
     else s.qH += scalarIntegral(g, k, tau);

@@ -26,7 +26,7 @@ describe('solveSteadyState', () => {
     for (const fs of [60e3, 120e3, 250e3]) {
       const p = params({ fs, vf: 0.5 });
       const open = solveSteadyState(p, Infinity);
-      const light = solveSteadyState(p, 1e7);
+      const light = solveSteadyState(p, 1e9);
       expect(open.io).toBe(0);
       expect(Math.abs(open.ioRect)).toBeLessThan(1e-9);
       expect(rel(light.vo, open.vo)).toBeLessThan(1e-4);
@@ -48,31 +48,32 @@ describe('solveSteadyState', () => {
 });
 
 // Property test over random designs (not tuned to one): the solver converges, the load equation
-// and the energy balance hold. Frequencies from 1.15 fp (above the no-load pole) to 3 fr.
+// and the energy balance hold. Frequencies from 1.05 fp (above the no-load pole) to 4 fr.
 describe('random designs (fast-check, fixed seed)', () => {
   it('converges with Io_rect = Vo/RL and energy balance to 1e-6', () => {
     const arb = fc.record({
-      ln: fc.double({ min: 2, max: 12, noNaN: true }),
+      ln: fc.double({ min: 1.5, max: 20, noNaN: true }),
       x: fc.double({ min: 0, max: 1, noNaN: true }),
-      q: fc.double({ min: 0.05, max: 1.5, noNaN: true }),
-      fb: fc.boolean(), fbr: fc.boolean(), dead: fc.boolean(),
-      coss: fc.double({ min: 0, max: 1e-9, noNaN: true }),
-      vf: fc.double({ min: 0, max: 1, noNaN: true }),
-      r: fc.double({ min: 0, max: 0.1, noNaN: true }),
+      q: fc.double({ min: 0.02, max: 3, noNaN: true }),
+      fb: fc.boolean(), fbr: fc.boolean(),
+      dead: fc.double({ min: 0, max: 0.05, noNaN: true }),
+      coss: fc.double({ min: 0, max: 5e-9, noNaN: true }),
+      vf: fc.double({ min: 0, max: 2, noNaN: true }),
+      r: fc.double({ min: 0, max: 0.5, noNaN: true }),
     });
     fc.assert(fc.property(arb, (a) => {
       const base = params({ lm: a.ln * 50e-6 });
       const fr = resonance(base);
-      const fnLow = 1.15 / Math.sqrt(1 + a.ln);
-      const fs = fr * fnLow * Math.exp(a.x * Math.log(3 / fnLow));
+      const fnLow = 1.05 / Math.sqrt(1 + a.ln);
+      const fs = fr * fnLow * Math.exp(a.x * Math.log(4 / fnLow));
       const p: TdParams = {
         ...base, fs, inverter: a.fb ? 'full-bridge' : 'half-bridge', rectifier: a.fbr ? 'full-bridge' : 'center-tapped',
-        coss: a.coss, deadTime: a.dead ? 0.02 / fs : 0, vf: a.vf, rd: a.r, rdsOn: a.r,
+        coss: a.coss, deadTime: a.dead / fs, vf: a.vf, rd: a.r / 4, rdsOn: a.r,
       };
       const rl = (Math.PI ** 2 * Math.sqrt(p.lr / p.cr)) / (8 * 16 * a.q);
       const s = solveSteadyState(p, rl);
       expect(rel(s.ioRect, s.vo / rl)).toBeLessThan(1e-6);
       expect(Math.abs(balance(s.power))).toBeLessThan(1e-6);
-    }), { seed: 20240611, numRuns: 60 });
+    }), { seed: 20240611, numRuns: 80, endOnFailure: true });
   });
 });
