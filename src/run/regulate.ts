@@ -8,7 +8,7 @@ import { simulateSteady, type SteadyOptions, type SteadyResult } from './steady.
 /** Regulation is met when the simulated output is within this fraction of output.voltage. */
 export const REGULATION_TOLERANCE = 0.005;
 /** The search aims inside the tolerance so that simulator noise does not leave it on the edge. */
-const AIM = 0.4;
+const AIM = 0.8;
 const MAX_STEPS = 8;
 
 export interface RegulateResult {

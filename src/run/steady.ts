@@ -20,7 +20,7 @@ export const RETRY_RUNGS: readonly RetryRung[] = [
 ];
 
 /** Settling and measurement window: whole switching cycles. */
-export const WINDOW_CYCLES = 8;
+export const WINDOW_CYCLES = 6;
 
 export interface SteadyOptions {
   /** Relative settle tolerance (design.simulation.settleTolerance). */

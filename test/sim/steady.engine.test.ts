@@ -41,7 +41,7 @@ describe('steady state on the demo nominal corner', () => {
     const vLong = spanAverage(makeSpan(w.t, deck.tstart, deck.tstop), w.vout);
     expect(rel(seeded.metrics!.vout, vLong)).toBeLessThan(0.002);
     // and the seed is the point: far fewer cycles than the zero start
-    expect(seeded.cycles).toBeLessThanOrEqual(100);
+    expect(seeded.cycles).toBeLessThanOrEqual(60);
   });
 
   it('halving the time step moves Vout by < 0.2 % and the tank RMS current by < 1 %', async () => {
