@@ -40,6 +40,18 @@ function positiveInt(v: string): number {
   return n;
 }
 
+/** Longest --only pattern accepted: corner ids are far shorter. */
+export const MAX_ONLY_LENGTH = 200;
+
+/**
+ * Checks a --only pattern. Runs of '*' collapse to one: each '*' becomes '.*' in the matcher, and a
+ * few thousand of them in a row make the regular expression backtrack for minutes.
+ */
+function onlyPattern(v: string): string {
+  if (v.length > MAX_ONLY_LENGTH) throw new InvalidArgumentError(`at most ${MAX_ONLY_LENGTH} characters`);
+  return v.replace(/\*{2,}/g, '*');
+}
+
 function program(): Command {
   const p = new Command('tankcheck')
     .description('LLC resonant converter corners: FHA predictions checked against ngspice simulation')
@@ -59,7 +71,7 @@ function program(): Command {
   p.command('fha').argument('<design>', 'design file (YAML)')
     .option('--json <file>', 'write results JSON (FHA only)')
     .option('--csv <file>', 'write results CSV (FHA only)')
-    .option('--only <pattern>', 'corners whose id matches (* and ? wildcards)')
+    .option('--only <pattern>', 'corners whose id matches (* and ? wildcards)', onlyPattern)
     .description('FHA prediction for every corner')
     .action(async (file: string, o: { json?: string; csv?: string; only?: string }) => {
       const design = await loadOrReport(file);
@@ -73,7 +85,7 @@ function program(): Command {
 
   p.command('decks').argument('<design>', 'design file (YAML)')
     .requiredOption('-o, --out <dir>', 'folder for the decks and index.csv')
-    .option('--only <pattern>', 'corners whose id matches')
+    .option('--only <pattern>', 'corners whose id matches', onlyPattern)
     .description('write one SPICE deck per corner (runs by hand with ngspice -b) and an index')
     .action(async (file: string, o: { out: string; only?: string }) => {
       const design = await loadOrReport(file);
@@ -86,7 +98,7 @@ function program(): Command {
     .option('--ngspice-path <path>', 'ngspice binary for --engine ngspice')
     .option('--jobs <n>', 'corners simulated at once (default: from cores and free memory)', positiveInt)
     .option('--out <dir>', 'folder for results.json, results.csv, junit.xml, waveforms.json', 'tankcheck-out')
-    .option('--only <pattern>', 'corners whose id matches')
+    .option('--only <pattern>', 'corners whose id matches', onlyPattern)
     .option('--baseline <results.json>', 'compare with an earlier run and flag regressions')
     .option('--baseline-tolerance <fraction>', 'relative change of a simulated metric that counts as moved', '0.01')
     .option('--html <file>', 'also write the HTML report')

@@ -2,8 +2,9 @@ import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { Design } from '../design/types.js';
 import type { Results } from '../report/types.js';
-import { createEngine, defaultJobs, EngineUnavailableError } from '../engine/index.js';
+import { createEngine, defaultJobs, maxJobs, EngineUnavailableError } from '../engine/index.js';
 import { runStudy } from '../run/study.js';
+import { expandCorners, filterCorners } from '../corners/expand.js';
 import { createFileCache } from '../run/cache.js';
 import { writeFilesAtomic } from '../run/files.js';
 import { renderResultsJson, renderWaveformsJson } from '../report/json.js';
@@ -49,12 +50,30 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
   const baselineTol = Number(o.baselineTolerance);
   if (!(baselineTol >= 0 && baselineTol < 1)) throw new UsageError('--baseline-tolerance must be a fraction in [0, 1)');
   const baseline = o.baseline ? await readBaseline(o.baseline) : undefined;
-  const jobs = o.jobs ?? defaultJobs(o.engine);
+  // --jobs is a wish: each wasm worker needs ~0.5 GB, so never start more than free memory holds
+  const limit = maxJobs(o.engine);
+  if (o.jobs !== undefined && o.jobs > limit) {
+    process.stderr.write(`warning: --jobs ${o.jobs} is more than this machine can hold for the ${o.engine} engine (free memory or cores); using ${limit}\n`);
+  }
+  const jobs = Math.min(o.jobs ?? defaultJobs(o.engine), limit);
   const engine = createEngine(o.engine, { path: o.ngspicePath, workers: jobs, keepDir: o.keepDecks });
   const controller = new AbortController();
-  const onSignal = () => controller.abort(new Error('interrupted'));
-  process.once('SIGINT', onSignal);
-  process.once('SIGTERM', onSignal);
+  let signals = 0;
+  // First SIGINT/SIGTERM/SIGHUP: stop starting corners, cancel the running ones (engines honour the
+  // signal), keep the finished ones and write the results marked incomplete. A second one stops at
+  // once; the native engine's exit hook kills any simulator process still running. SIGHUP (terminal
+  // closed) counts because system ngspice runs in its own process group, out of the terminal's reach.
+  const onSignal = (sig: NodeJS.Signals) => {
+    if (++signals === 1) {
+      process.stderr.write(`\ntankcheck: ${sig}: stopping; finished corners are kept and written (send it again to stop at once)\n`);
+      controller.abort(new Error(`interrupted by ${sig}`));
+      return;
+    }
+    process.stderr.write(`tankcheck: ${sig} again: stopping at once, nothing more is written\n`);
+    process.exit(EXIT.interrupted);
+  };
+  const SIGNALS = ['SIGINT', 'SIGTERM', 'SIGHUP'] as const;
+  for (const sig of SIGNALS) process.on(sig, onSignal);
   try {
     try {
       await engine.version();
@@ -65,17 +84,16 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
       }
       throw e;
     }
-    let progress: ReturnType<typeof createProgress> | undefined;
+    // started before the first corner, so a log shows at once how much work is coming
+    const progress = createProgress(process.stderr, filterCorners(expandCorners(design), o.only).length);
+    progress.start();
     const { results, waveforms } = await runStudy(design, {
       engine, jobs, only: o.only, signal: controller.signal,
       cache: o.cache ? createFileCache(o.cacheDir) : undefined,
       timeoutMs: o.timeout ? o.timeout * 1000 : undefined,
-      onProgress: (p) => {
-        if (!progress) { progress = createProgress(process.stderr, p.total); progress.start(); }
-        progress.update(p);
-      },
+      onProgress: (p) => progress.update(p),
     });
-    progress?.end();
+    progress.end();
     if (baseline) results.baseline = compareBaseline(results, baseline, o.baseline!, baselineTol);
     const files = [
       { path: join(o.out, 'results.json'), text: renderResultsJson(results) },
@@ -89,10 +107,14 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
     process.stdout.write(`\n${renderSummary(results)}`);
     if (results.baseline) process.stdout.write(renderBaseline(results.baseline));
     process.stdout.write(`wrote ${files.map((f) => f.path).join(', ')}\n`);
+    if (results.incomplete) {
+      const finished = results.corners.filter((c) => c.status !== 'predicted').length;
+      const rerun = o.cache ? ' (a rerun takes the finished ones from the cache)' : '';
+      process.stderr.write(`tankcheck: interrupted: ${finished} of ${results.corners.length} corners finished; the results are marked incomplete${rerun}\n`);
+    }
     return exitCodeFor(results);
   } finally {
-    process.off('SIGINT', onSignal);
-    process.off('SIGTERM', onSignal);
+    for (const sig of SIGNALS) process.off(sig, onSignal);
     await engine.close();
   }
 }

@@ -60,6 +60,12 @@ describe('filterModelText', () => {
       'm.lib:6:1 devices.diodeModel.file: .subckt is never closed by .ends',
     ]);
   });
+  it('refuses a continuation line before the first card (it would extend a line of the deck, e.g. its .options)', () => {
+    expect(rejected(`* vendor header\n+ interp\n${DIODE}`)).toEqual([
+      'm.lib:2:1 devices.diodeModel.file: a continuation line (+) must follow a card of this file; here it would continue a line of the netlist tankcheck writes',
+    ]);
+    expect(filterModelText(`.model X D(IS=1e-12\n* comment between\n+ N=1.5)\n`, 'x').ok).toBe(true);
+  });
   it('requires at least one definition', () => {
     expect(rejected('* only a comment\n')).toEqual(['m.lib devices.diodeModel.file: no .model or .subckt definition found']);
     expect(rejected('')).toHaveLength(1);

@@ -37,7 +37,8 @@ function badChar(line: string): { column: number; what: string } | undefined {
  * Check a device model file (vendor `.model` / `.subckt` text) before it is pasted into a netlist.
  * Pure. Refused, each with its line: any non-ASCII byte or control character (tab excepted);
  * lines starting with `.control`, `.endc`, `*ng_script`, `.include`, `.inc`, `.lib`, `shell`;
- * `.end` and anything after it; dot commands other than `.model`/`.subckt` at top level (and
+ * `.end` and anything after it; a `+` continuation before the file's first card (it would extend a line of
+ * the deck); dot commands other than `.model`/`.subckt` at top level (and
  * `.ends`/`.param`/`.func` inside a subcircuit); device lines outside a `.subckt`; unbalanced
  * `.subckt`/`.ends`. At least one `.model` or `.subckt` is required. `file` names the model file
  * in the problems; `path` is the design key that referenced it.
@@ -51,6 +52,8 @@ export function filterModelText(text: string, file: string, path = ''): FilterRe
   const names: string[] = [];
   const opened: number[] = [];
   let endLine = 0;
+  // A '+' line continues the line before it; before this file's first card that would be a line of our deck
+  let hasCard = false;
   lines.forEach((raw, i) => {
     const n = i + 1;
     const trimmed = raw.trim();
@@ -65,7 +68,12 @@ export function filterModelText(text: string, file: string, path = ''): FilterRe
       endLine = n;
       return add(n, 1, raw, '.end is not allowed in a model file; tankcheck ends the netlist itself');
     }
-    if (low.startsWith('*') || low.startsWith('+')) return;
+    if (low.startsWith('*')) return;
+    if (low.startsWith('+')) {
+      if (!hasCard) add(n, 1, raw, 'a continuation line (+) must follow a card of this file; here it would continue a line of the netlist tankcheck writes');
+      return;
+    }
+    hasCard = true;
     const word = low.split(/[\s(]/)[0];
     if (word.startsWith('.')) {
       const allowed = opened.length > 0 ? IN_SUBCKT : TOP_LEVEL;

@@ -1,6 +1,7 @@
 import { mkdtempSync, readFileSync, rmSync, writeFileSync, mkdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
+import { execFileSync } from 'node:child_process';
 import { afterAll, describe, expect, it } from 'vitest';
 import { DesignError, loadDesign, loadDesignOrThrow } from './load.js';
 import { formatProblem } from './problem.js';
@@ -53,8 +54,17 @@ describe('loadDesign', () => {
     ]);
     const m = await loadDesign(write('missing-model.yaml', withDevices('nope.lib')));
     expect(!m.ok && m.problems.map((p) => formatProblem(p, 'm.yaml').replace(dir, '<dir>'))).toEqual([
-      '<dir>/nope.lib devices.diodeModel.file: model file "nope.lib": the file does not exist',
+      // the design file's line that names the model file (withDevices appends it as the last line)
+      `m.yaml:${demo.split('\n').length + 1}:22 devices.diodeModel.file: model file "nope.lib" (looked for <dir>/nope.lib): the file does not exist`,
     ]);
+  });
+  it('refuses a model path that is not a regular file (FIFO, device, directory) at once, without blocking on it', async () => {
+    const fifo = join(dir, 'models.fifo');
+    execFileSync('mkfifo', [fifo]);
+    for (const target of [fifo, '/dev/zero', dir]) {
+      const r = await loadDesign(write('special.yaml', withDevices(target)));
+      expect(!r.ok && r.problems.map((p) => p.message)).toEqual([`model file "${target}": is not a regular file (a device, pipe or socket cannot be a model file)`]);
+    }
   });
   it('refuses non-UTF-8 bytes with their line and column', async () => {
     // "µ" saved as Latin-1 is the single byte 0xB5, which is not valid UTF-8

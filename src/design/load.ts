@@ -1,9 +1,11 @@
+import { constants } from 'node:fs';
 import { open } from 'node:fs/promises';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
 import type { Design, DeviceModel } from './types.js';
 import { filterModelText } from './filterModel.js';
 import { parseDesign, type ParseDesignResult } from './parse.js';
 import { formatProblem, type Problem } from './problem.js';
+import type { Loc } from './reader.js';
 import { decodeUtf8 } from './utf8.js';
 
 /** Largest design or model file read, in bytes. @default 1 MB */
@@ -23,11 +25,16 @@ export class DesignError extends Error {
 const problem = (code: Problem['code'], path: string, message: string, extra: Partial<Problem> = {}): Problem =>
   ({ code, path, line: 0, column: 0, expected: '', received: '', message, ...extra });
 
-/** Read at most `max` bytes (one more to detect oversize) without trusting the reported file size. */
-async function readCapped(path: string, max: number): Promise<{ bytes: Uint8Array } | { error: string }> {
+/**
+ * Read at most `max` bytes (one more to detect oversize) without trusting the reported file size.
+ * `regularOnly`: refuse anything but a regular file. The open is non-blocking so that a FIFO named by
+ * a design (a model path is not the user's own argument) cannot stall the loader waiting for a writer.
+ */
+async function readCapped(path: string, max: number, regularOnly = false): Promise<{ bytes: Uint8Array } | { error: string }> {
   let handle;
   try {
-    handle = await open(path, 'r');
+    handle = await open(path, regularOnly ? constants.O_RDONLY | (constants.O_NONBLOCK ?? 0) : 'r');
+    if (regularOnly && !(await handle.stat()).isFile()) return { error: 'is not a regular file (a device, pipe or socket cannot be a model file)' };
     const buf = new Uint8Array(max + 1);
     let n = 0;
     while (n < buf.length) {
@@ -46,12 +53,16 @@ async function readCapped(path: string, max: number): Promise<{ bytes: Uint8Arra
 }
 
 /** Read one device model file relative to the design file and pass it through the line filter. */
-async function loadModel(designPath: string, key: string, model: DeviceModel): Promise<{ model?: DeviceModel; problems: Problem[] }> {
+async function loadModel(designPath: string, key: string, model: DeviceModel, at?: Loc): Promise<{ model?: DeviceModel; problems: Problem[] }> {
   const path = `devices.${key}.file`;
   // shown in problems: relative to where the design path is relative to (usually the working directory)
   const shown = isAbsolute(model.file) ? model.file : join(dirname(designPath), model.file);
-  const read = await readCapped(resolve(shown), MAX_FILE_BYTES);
-  if ('error' in read) return { problems: [problem('io', path, `model file "${model.file}": ${read.error}`, { file: shown })] };
+  const read = await readCapped(resolve(shown), MAX_FILE_BYTES, true);
+  // an unreadable model file is a problem of the design file's line that names it
+  if ('error' in read) {
+    const where = shown === model.file ? '' : ` (looked for ${shown})`;
+    return { problems: [problem('io', path, `model file "${model.file}"${where}: ${read.error}`, at ?? {})] };
+  }
   // latin1 keeps one character per byte, so the filter can name any non-ASCII byte exactly
   const filtered = filterModelText(Buffer.from(read.bytes).toString('latin1'), shown, path);
   if (!filtered.ok) return { problems: filtered.problems };
@@ -82,12 +93,12 @@ export async function loadDesign(path: string): Promise<ParseDesignResult> {
   for (const key of ['diodeModel', 'switchModel'] as const) {
     const model = parsed.design.devices[key];
     if (!model) continue;
-    const got = await loadModel(path, key, model);
+    const got = await loadModel(path, key, model, parsed.modelFileAt?.[key]);
     problems.push(...got.problems);
     if (got.model) devices[key] = got.model;
   }
   if (problems.length > 0) return { ok: false, problems };
-  return { ok: true, design: { ...parsed.design, devices }, warnings: parsed.warnings };
+  return { ok: true, design: { ...parsed.design, devices }, warnings: parsed.warnings, modelFileAt: parsed.modelFileAt };
 }
 
 /** `loadDesign`, throwing a DesignError (with every problem) instead of returning them. */

@@ -83,5 +83,6 @@ function readText(r: Reader, e: Entry | undefined, path: string, parent: Entry, 
     r.expected('value', path, e.loc, expected, quote(raw), bad ? `contains ${bad}` : text === '' ? 'is empty' : `is longer than ${max} characters`);
     return undefined;
   }
+  r.seen.set(path, { ...e.loc, text });
   return text;
 }

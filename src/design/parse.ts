@@ -11,7 +11,13 @@ import { readSection, type SectionValues } from './sections.js';
 
 /** Outcome of `parseDesign`: a validated Design plus warnings, or every error found. */
 export type ParseDesignResult =
-  | { ok: true; design: Design; warnings: Problem[] }
+  | {
+      ok: true;
+      design: Design;
+      warnings: Problem[];
+      /** Where each device model's `file` key was written, so the loader can point at it when the file cannot be read. */
+      modelFileAt?: Partial<Record<'diodeModel' | 'switchModel', Loc>>;
+    }
   | { ok: false; problems: Problem[] };
 
 /**
@@ -100,5 +106,10 @@ export function parseDesign(text: string, file: string): ParseDesignResult {
     return { ok: false, problems: errors.sort(byPosition) };
   }
   const design = { name, file, ...core, devices } as Design;
-  return { ok: true, design, warnings: r.warnings.sort(byPosition) };
+  const modelFileAt: Partial<Record<'diodeModel' | 'switchModel', Loc>> = {};
+  for (const key of ['diodeModel', 'switchModel'] as const) {
+    const at = r.seen.get(`devices.${key}.file`);
+    if (at) modelFileAt[key] = { line: at.line, column: at.column };
+  }
+  return { ok: true, design, warnings: r.warnings.sort(byPosition), modelFileAt };
 }

@@ -9,7 +9,7 @@ export { createNgspiceEngine, probeNgspice, type NgspiceEngineOptions } from './
 export { createWasmEngine, type WasmEngine, type WasmEngineOptions } from './wasm.js';
 export { parseRaw, normaliseVectorName, RawFormatError, type RawPlot, type RawVariable } from './rawfile.js';
 export { classifyRun, parseDiagnostics, findTimestepFailure, type RunOutcome, type Classification } from './classify.js';
-export { mapPool, defaultJobs, type HostInfo } from './pool.js';
+export { mapPool, defaultJobs, maxJobs, type HostInfo } from './pool.js';
 export {
   runWithRetries,
   defaultRungs,

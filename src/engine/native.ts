@@ -2,7 +2,10 @@
  * System ngspice adapter: one `ngspice -n -b -r out.raw deck.cir` process per job in a fresh temp dir.
  * `-n` and HOME = the temp dir keep any `.spiceinit` (cwd or home) from being read; stdin is ignored and
  * argv is an array (no shell). The raw file is parsed even after a failure or a kill, to keep partial rows.
+ * Each process leads its own process group, which is killed as soon as the process exits (and when
+ * tankcheck exits), so nothing it started (a wrapper script's ngspice, say) outlives the job.
  */
+import { rmSync } from 'node:fs';
 import { mkdir, mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
@@ -48,6 +51,36 @@ export async function probeNgspice(path = 'ngspice'): Promise<string> {
   return m[0];
 }
 
+/** POSIX only: a job leads its own process group, so the whole group can be signalled. */
+const GROUPS = process.platform !== 'win32';
+/**
+ * Jobs still running: process group -> work dir to remove (undefined with keepDir). If tankcheck exits
+ * first (a forced second Ctrl-C, say), the exit hook kills the groups and removes the dirs.
+ */
+const running = new Map<number, string | undefined>();
+let exitHook = false;
+
+/** SIGKILL to every process of the job's group; a group that is already gone is fine. */
+function killGroup(pid: number): void {
+  try {
+    process.kill(-pid, 'SIGKILL');
+  } catch {
+    // ESRCH: nothing left
+  }
+}
+
+function track(pid: number, dir: string | undefined): void {
+  running.set(pid, dir);
+  if (exitHook) return;
+  exitHook = true;
+  process.on('exit', () => {
+    for (const [g, d] of running) {
+      killGroup(g);
+      if (d) rmSync(d, { recursive: true, force: true });
+    }
+  });
+}
+
 function failedEarly(job: SimJob, kind: 'input' | 'aborted', message: string, t0: number): SimResult {
   return failedResult(job.id, { kind, message }, performance.now() - t0);
 }
@@ -68,7 +101,7 @@ async function runJob(opts: Required<Omit<NgspiceEngineOptions, 'tmpRoot'>> & { 
   const dir = await mkdtemp(join(opts.tmpRoot, 'tankcheck-'));
   try {
     await writeJobFiles(dir, job);
-    const r = await execa(opts.path, ['-n', '-b', '-r', 'out.raw', 'deck.cir'], {
+    const child = execa(opts.path, ['-n', '-b', '-r', 'out.raw', 'deck.cir'], {
       cwd: dir,
       env: childEnv(dir),
       extendEnv: false,
@@ -78,7 +111,24 @@ async function runJob(opts: Required<Omit<NgspiceEngineOptions, 'tmpRoot'>> & { 
       forceKillAfterDelay: opts.killGraceMs,
       cancelSignal: job.signal,
       maxBuffer: 64 * 1024 * 1024,
+      // own process group (and no terminal signals: an interrupt reaches ngspice through cancelSignal)
+      detached: GROUPS,
     });
+    const pid = child.pid;
+    if (GROUPS && pid !== undefined) {
+      track(pid, opts.keepDir ? undefined : dir);
+      // whatever the process left running would hold its output pipes open and keep this run waiting
+      child.on('exit', () => killGroup(pid));
+    }
+    let r;
+    try {
+      r = await child;
+    } finally {
+      if (GROUPS && pid !== undefined) {
+        killGroup(pid);
+        running.delete(pid);
+      }
+    }
     const raw = await readFile(join(dir, 'out.raw')).catch(() => undefined);
     const stdoutMessages = r.stdout.split('\n').filter((l) => /^\s*(error|warning)\b/i.test(l));
     const lines = [...r.stderr.split('\n'), ...stdoutMessages];

@@ -57,3 +57,16 @@ export function defaultJobs(engineName: 'wasm' | 'ngspice', host: HostInfo = {})
   if (engineName === 'wasm' && (host.freeBytes ?? freemem()) < WASM_TWO_WORKER_MIN_FREE) return 1;
   return jobs;
 }
+
+/** Memory one wasm worker may take (RSS 0.4-0.5 GB, engine notes section 1), bytes. */
+export const WASM_WORKER_BYTES = 0.5 * 1024 ** 3;
+
+/**
+ * Most jobs the host can hold at once, whatever --jobs asks for: wasm one worker per 0.5 GB of free
+ * memory; native ngspice (~13 MB per process) 4 per CPU, beyond which processes only wait for a core.
+ * Never below 1.
+ */
+export function maxJobs(engineName: 'wasm' | 'ngspice', host: HostInfo = {}): number {
+  if (engineName === 'wasm') return Math.max(1, Math.floor((host.freeBytes ?? freemem()) / WASM_WORKER_BYTES));
+  return Math.max(1, 4 * (host.cpus ?? availableParallelism()));
+}

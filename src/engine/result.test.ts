@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseRaw } from './rawfile.js';
-import { assembleResult, plotVectors } from './result.js';
+import { assembleResult, implausibleVectors, plotVectors } from './result.js';
 
 const fixture = (name: string) => readFileSync(new URL(`../../test/fixtures/raw/${name}`, import.meta.url));
 
@@ -32,6 +32,27 @@ describe('assembleResult', () => {
     const junk = assembleResult({ id: 'j', raw: Buffer.from('not a raw file'), outcome: { lines: [], completed: true }, wallMs: 1 });
     expect(junk.failure?.kind).toBe('engine');
     expect(junk.diagnostics[0].text).toMatch(/unreadable raw file/);
+  });
+
+  it('names what is wrong with the raw file of a run that claims success: missing, empty, truncated', () => {
+    const ok = { lines: [], completed: true, exitCode: 0 };
+    expect(assembleResult({ id: 'n', outcome: ok, wallMs: 1 }).failure).toEqual({ kind: 'engine', message: 'the simulator reported success but no raw file was written' });
+    expect(assembleResult({ id: 'e', raw: new Uint8Array(0), outcome: ok, wallMs: 1 }).failure?.message).toBe('the simulator reported success but the raw file is empty');
+    const cut = assembleResult({ id: 't', raw: fixture('rc-tran.ngspice39.truncated.raw'), outcome: ok, wallMs: 1 });
+    expect(cut.failure?.message).toMatch(/^the simulator reported success but the raw file (is truncated \(\d+ of \d+ rows\)|is incomplete)/);
+    // a run that failed on its own keeps the simulator's reason
+    const aborted = assembleResult({ id: 'a', raw: fixture('timestep-abort.ngspice39.raw'), outcome: { lines: timestepLines, completed: false, exitCode: 1 }, wallMs: 1 });
+    expect(aborted.failure?.message).toMatch(/^doAnalyses: TRAN: Timestep too small/);
+  });
+
+  it('refuses rows that cannot be simulator output: non-finite values or time running backwards', () => {
+    const [plot] = parseRaw(fixture('multi.ngspice39.raw')).slice(-1);
+    expect(implausibleVectors(plot)).toBeUndefined();
+    const nan = { ...plot, vectors: { ...plot.vectors, 'v(out)': plot.vectors['v(out)'].map((x, i) => (i === 3 ? NaN : x)) } };
+    expect(implausibleVectors(nan)).toBe('v(out) has a value that is not finite (NaN) at row 3');
+    const t = plot.vectors.time.slice();
+    [t[5], t[6]] = [t[6], t[5]];
+    expect(implausibleVectors({ ...plot, vectors: { ...plot.vectors, time: t } })).toMatch(/^time decreases at row 6 /);
   });
 
   it('returns a complete run as ok with the last plot of a multi-plot file', () => {

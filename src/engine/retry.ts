@@ -104,7 +104,7 @@ function attemptOf(label: string, r: SimResult): Attempt {
 /**
  * Runs the job as configured; after a convergence failure tries each rung in order (each rewrites the
  * original deck) until one run does not fail on convergence. Returns the last result with every try
- * listed in `attempts`.
+ * listed in `attempts`; a convergence failure that survived the rungs says which were tried.
  */
 export async function runWithRetries(
   engine: SimEngine,
@@ -117,6 +117,10 @@ export async function runWithRetries(
     if (result.failure?.kind !== 'convergence' || job.signal?.aborted) break;
     result = await engine.run({ ...job, deck: rung.transform(job.deck) });
     attempts.push(attemptOf(rung.label, result));
+  }
+  if (result.failure?.kind === 'convergence' && attempts.length > 1) {
+    const tried = attempts.map((a) => a.label).join(', ');
+    result = { ...result, failure: { ...result.failure, message: `${result.failure.message} (after ${attempts.length} attempts: ${tried})` } };
   }
   return { ...result, attempts };
 }

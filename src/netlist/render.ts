@@ -11,9 +11,13 @@ export function spiceNumber(x: number): string {
   return x.toExponential(12);
 }
 
-/** A name reduced to [A-Za-z0-9_.-] (max 80 characters), safe in a comment, title or file name. */
+/**
+ * A name reduced to [A-Za-z0-9_.-] (max 80 characters), safe in a comment, title or file name. A
+ * leading '.' becomes '_': a design may be named ".control" or "..", and neither a dot command nor a
+ * relative path may come out of it.
+ */
 export function safeName(s: string): string {
-  const out = s.replace(/[^A-Za-z0-9_.-]+/g, '_').slice(0, 80);
+  const out = s.replace(/[^A-Za-z0-9_.-]+/g, '_').replace(/^\./, '_').slice(0, 80);
   return out.length > 0 ? out : '_';
 }
 

@@ -87,13 +87,14 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
     if (!opts.signal?.aborted) throw e;
   });
   const results: CornerResult[] = corners.map((c, i) => outcomes[i]?.result ?? predictedOnly(design, c));
-  const incomplete = outcomes.some((o) => o === undefined);
+  // not outcomes.some(): the array is sparse, and some() skips the holes of corners never started
+  const incomplete = corners.some((_, i) => outcomes[i] === undefined);
   return {
     results: {
-      schema: 'tankcheck/results@1', tool: { name: 'tankcheck', version: TOOL_VERSION },
+      // an interrupted study says so first, before anyone reads a table built from it
+      schema: 'tankcheck/results@1', ...(incomplete ? { incomplete: true } : {}), tool: { name: 'tankcheck', version: TOOL_VERSION },
       design: { name: design.name, file: design.file ?? null },
       engine: { name: opts.engine.name, version: engineVersion },
-      ...(incomplete ? { incomplete: true } : {}),
       corners: results, summary: summarize(results, cacheHits),
     },
     waveforms: outcomes.flatMap((o) => (o?.waveform ? [o.waveform] : [])),

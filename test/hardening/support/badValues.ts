@@ -132,5 +132,12 @@ export function applyMutations(ms: Mutation[]): { text: string; expected: { path
   const extra = new Map<string, string[]>();
   for (const m of ms) m.apply(tree, extra);
   const { text, lineOf } = emit(tree, extra);
-  return { text, expected: ms.map((m) => ({ path: m.path, label: m.label, line: m.lineKey === '<root>' ? 1 : lineOf.get(m.lineKey)! + m.offset })) };
+  const expected = ms.map((m) => {
+    // deleting every key of a section leaves it empty: then the section itself is reported
+    const section = m.path.split('.')[0];
+    const emptied = m.label.startsWith('delete ') && m.path.includes('.') && Object.keys(getAt(tree, section) as Tree).length === 0;
+    if (emptied) return { path: section, label: m.label, line: lineOf.get(section)! };
+    return { path: m.path, label: m.label, line: m.lineKey === '<root>' ? 1 : lineOf.get(m.lineKey)! + m.offset };
+  });
+  return { text, expected };
 }
