@@ -63,4 +63,11 @@ describe('compareCorner', () => {
     const reg = compareCorner(design, fha, sim({ vout: fha.vout! * 1.2 }), true);
     expect(reg.rows.find((r) => r.metric === 'vout')!.verdict).toBe('info');
   });
+
+  it('an FHA value of 0 gives no relative error (never Infinity in a table)', () => {
+    const zero = { ...fha, switchTurnOffCurrent: 0 };
+    const row = compareCorner(design, zero, sim({ switchTurnOffCurrent: 0.5 }), false).rows.find((r) => r.metric === 'switchTurnOffCurrent')!;
+    expect(row.error).toBeNull();
+    expect(row.verdict).toBe('info');
+  });
 });

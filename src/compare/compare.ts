@@ -46,13 +46,14 @@ export function compareCorner(design: Design, fha: FhaResult, sim: SimMetrics, r
     const s = sim[metric] as number;
     const informational = (metric === 'fs' && !regulated) || (metric === 'vout' && regulated);
     const tolerance = informational ? null : design.compare[group];
-    if (f === null || !Number.isFinite(s)) {
+    // A zero or non-finite FHA value has no relative error (the table shows '!' for a diverged one).
+    if (f === null || !Number.isFinite(s) || !Number.isFinite(f) || f === 0) {
       const diverged = f === null && metric === 'fs' && regulated;
       rows.push({ metric, fha: f, sim: s, error: null, tolerance, verdict: diverged ? 'diverged' : 'info',
         ...(diverged ? { reason: 'FHA finds no ZVS-compatible frequency for this gain; simulation regulates here (FHA under-predicts gain below resonance, method reference 2.7, 5.3)' } : {}) });
       continue;
     }
-    const error = Math.abs(f) > 0 ? (s - f) / Math.abs(f) : s === 0 ? 0 : Infinity;
+    const error = (s - f) / Math.abs(f);
     const over = tolerance !== null && Math.abs(error) > tolerance;
     const row: ComparisonRow = { metric, fha: f, sim: s, error, tolerance, verdict: tolerance === null ? 'info' : over ? 'diverged' : 'ok' };
     if (over) {

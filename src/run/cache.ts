@@ -5,9 +5,8 @@ import type { Design } from '../design/types.js';
 import type { Corner } from '../corners/types.js';
 import type { CornerCache } from './study.js';
 import type { CornerOutcome } from './corner.js';
-import { predictCorner } from '../fha/predict.js';
 import { buildDeck } from '../netlist/deck.js';
-import { startPoint } from './seed.js';
+import type { StartPoint } from './seed.js';
 import { writeFilesAtomic } from './files.js';
 import { TOOL_VERSION } from '../version.js';
 
@@ -21,9 +20,7 @@ export const CACHE_FORMAT = 2;
  */
 export function createFileCache(dir: string): CornerCache {
   return {
-    key(design: Design, corner: Corner, engineVersion: string): string {
-      const fha = predictCorner(design, corner);
-      const start = startPoint(design, corner, fha);
+    key(design: Design, corner: Corner, engineVersion: string, start: StartPoint): string {
       const deck = buildDeck({ design, corner, fs: start.fs, seed: start.seed, cycles: 24, saveCycles: 24 });
       const h = createHash('sha256');
       h.update(JSON.stringify({ CACHE_FORMAT, TOOL_VERSION, engineVersion, deck: deck.text, sim: design.simulation, target: design.output.voltage, slope: start.slope, regulated: corner.fs === null }));

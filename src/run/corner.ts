@@ -7,7 +7,7 @@ import type { CornerResult, SimSummary, WaveformExcerpt } from '../report/types.
 import { compareCorner } from '../compare/compare.js';
 import { simulateSteady, WINDOW_CYCLES } from './steady.js';
 import { regulate } from './regulate.js';
-import { startPoint, type SeedMethod } from './seed.js';
+import { startPoint, type SeedMethod, type StartPoint } from './seed.js';
 import { excerpt } from '../report/excerpt.js';
 
 export interface CornerRunOptions {
@@ -15,6 +15,8 @@ export interface CornerRunOptions {
   timeoutMs?: number;
   /** How runs start. @default 'model' */
   seed?: SeedMethod;
+  /** A start already computed (the study computes it once for the cache key too). */
+  start?: StartPoint;
 }
 
 export interface CornerOutcome {
@@ -35,7 +37,7 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
   opts: CornerRunOptions = {}): Promise<CornerOutcome> {
   const regulated = corner.fs === null;
   const steadyOpts = { tolerance: design.simulation.settleTolerance, maxCycles: design.simulation.maxCycles, signal: opts.signal, timeoutMs: opts.timeoutMs };
-  const start = startPoint(design, corner, fha, opts.seed);
+  const start = opts.start ?? startPoint(design, corner, fha, opts.seed);
   const base = { id: corner.id, inputs: cornerInputs(corner), fha };
   let steady;
   let simulations = 1;

@@ -38,6 +38,9 @@ function fromModel(s: SeedState): DeckSeed {
   return { vo: s.vo, ir: s.ir, im: s.im, vcr: s.vcr, va: s.vNode[0] ?? 0, vb: s.vNode[1] ?? 0 };
 }
 
+/** Normalised frequencies fs/fr inside which the time-domain model is used for the start. */
+export const MODEL_FN_RANGE: readonly [number, number] = [0.05, 20];
+
 const ZERO: DeckSeed = { vo: 0, ir: 0, im: 0, vcr: 0, va: 0, vb: 0 };
 
 /**
@@ -55,6 +58,10 @@ export function startPoint(design: Design, corner: Corner, fha: FhaResult, metho
     source: method === 'zero' ? 'zero' : 'fha',
   });
   if (method !== 'model') return fallback();
+  // The model integrates every resonant cycle inside a switching period: far from resonance it gets
+  // slow (seconds per corner at fs/fr = 1e-3) while FHA is a fine start there anyway.
+  const fn = fhaFs / fha.fr;
+  if (!(fn > MODEL_FN_RANGE[0] && fn < MODEL_FN_RANGE[1])) return fallback();
   try {
     const p = modelParams(design, corner, fhaFs);
     if (!regulated) {

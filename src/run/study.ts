@@ -7,6 +7,7 @@ import { predictCorner } from '../fha/predict.js';
 import { compareCorner } from '../compare/compare.js';
 import { summarize } from '../report/summary.js';
 import { cornerInputs, simulateCorner, type CornerOutcome } from './corner.js';
+import { startPoint, type StartPoint } from './seed.js';
 import { mapPool } from '../engine/pool.js';
 import { TOOL_VERSION } from '../version.js';
 
@@ -20,7 +21,7 @@ export interface StudyProgress {
 
 /** Corner-level result cache (content-addressed by the caller's key). */
 export interface CornerCache {
-  key(design: Design, corner: Corner, engineVersion: string): string;
+  key(design: Design, corner: Corner, engineVersion: string, start: StartPoint): string;
   get(key: string): Promise<CornerOutcome | undefined>;
   set(key: string, value: CornerOutcome): Promise<void>;
 }
@@ -67,13 +68,14 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
   await mapPool(corners, opts.jobs ?? 1, async (corner, i) => {
     if (opts.signal?.aborted) return;
     const fha = predictCorner(design, corner);
-    const key = opts.cache?.key(design, corner, engineVersion);
+    const start = startPoint(design, corner, fha);
+    const key = opts.cache?.key(design, corner, engineVersion, start);
     let out = key ? await opts.cache!.get(key) : undefined;
     if (out) {
       cacheHits++;
       out = refreshComparison(design, corner, fha, out);
     } else {
-      out = await simulateCorner(opts.engine, design, corner, fha, { signal: opts.signal, timeoutMs: opts.timeoutMs })
+      out = await simulateCorner(opts.engine, design, corner, fha, { signal: opts.signal, timeoutMs: opts.timeoutMs, start })
         .catch((e: unknown): CornerOutcome => ({ result: { id: corner.id, inputs: cornerInputs(corner), fha, sim: null, comparison: [], divergences: [],
           status: 'failed', failure: { kind: 'measurement', message: e instanceof Error ? e.message : String(e) } } }));
       if (opts.signal?.aborted && out.result.status === 'failed') return; // interrupted, not a simulator failure
