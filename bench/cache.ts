@@ -1,0 +1,65 @@
+/**
+ * Case 5: the demo run twice through runStudy with a file cache in a fresh temp folder. The second
+ * run must simulate nothing (summary.simulations 0, cacheHits = corners) and give the same
+ * simulated values.
+ */
+import { mkdtemp, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { SimEngine } from '../src/engine/index.js';
+import { expandCorners } from '../src/corners/expand.js';
+import { createFileCache } from '../src/run/cache.js';
+import { startPoint } from '../src/run/seed.js';
+import { predictCorner } from '../src/fha/predict.js';
+import { runStudy } from '../src/run/study.js';
+import type { BenchDesign } from './settling.js';
+import { log, median } from './util.js';
+
+export interface CaseCache {
+  design: string;
+  corners: number;
+  jobs: number;
+  firstMs: number;
+  secondMs: number;
+  secondSimulations: number;
+  secondCacheHits: number;
+  firstSimulations: number;
+  /** Every corner's simulated values (fromCache aside) equal in both runs. */
+  sameValues: boolean;
+  /** Median time per corner of cache.key() and of the start point it needs (FHA + time-domain model), ms: the second run's main cost. */
+  keyMedianMs: number;
+  startMedianMs: number;
+}
+
+export async function measureCache(d: BenchDesign, engine: SimEngine, jobs: number): Promise<CaseCache> {
+  const dir = await mkdtemp(join(tmpdir(), 'tankcheck-bench-cache-'));
+  try {
+    const cache = createFileCache(dir);
+    let t0 = performance.now();
+    const first = await runStudy(d.design, { engine, jobs, cache });
+    const firstMs = performance.now() - t0;
+    log(`cache ${d.key}: first run ${firstMs.toFixed(0)} ms, ${first.results.summary.simulations} simulations`);
+    t0 = performance.now();
+    const second = await runStudy(d.design, { engine, jobs, cache });
+    const secondMs = performance.now() - t0;
+    const strip = (s: unknown) => JSON.stringify({ ...(s as object), fromCache: undefined });
+    const sameValues = first.results.corners.every((c, i) => strip(c.sim) === strip(second.results.corners[i]?.sim));
+    const version = await engine.version();
+    const startMs: number[] = [];
+    const keyMs: number[] = [];
+    for (const c of expandCorners(d.design)) {
+      const k0 = performance.now();
+      const start = startPoint(d.design, c, predictCorner(d.design, c));
+      const k1 = performance.now();
+      cache.key(d.design, c, version, start);
+      startMs.push(k1 - k0);
+      keyMs.push(performance.now() - k1);
+    }
+    const s = second.results.summary;
+    log(`cache ${d.key}: second run ${secondMs.toFixed(0)} ms, ${s.simulations} simulations, ${s.cacheHits} cache hits`);
+    return { design: d.key, corners: first.results.corners.length, jobs, firstMs, secondMs, secondSimulations: s.simulations,
+      secondCacheHits: s.cacheHits, firstSimulations: first.results.summary.simulations, sameValues, keyMedianMs: median(keyMs), startMedianMs: median(startMs) };
+  } finally {
+    await rm(dir, { recursive: true, force: true });
+  }
+}
