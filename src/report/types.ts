@@ -32,31 +32,13 @@ export interface ComparisonRow {
   unexpectedSign?: boolean;
 }
 
-export interface Divergence {
-  metric: string;
-  fha: number | string | boolean | null;
-  sim: number | string | boolean | null;
-  error: number | null;
-  tolerance: number | null;
-  reason: string;
-  unexpectedSign?: boolean;
-}
+/** A comparison row beyond tolerance, with its reason (results.json `divergences`). */
+export type Divergence = Pick<ComparisonRow, 'metric' | 'fha' | 'sim' | 'error' | 'tolerance' | 'unexpectedSign'> & { reason: string };
 
 export interface CornerResult {
   id: string;
-  inputs: {
-    vin: number;
-    load: number;
-    loadLabel: string;
-    iout: number;
-    pout: number;
-    fs: number | null;
-    lr: number;
-    cr: number;
-    lm: number;
-    turnsRatio: number;
-    tolerance: Corner['tolerance'];
-  };
+  /** The corner's parameters (SI units; load in ohm, fs null when regulating). */
+  inputs: Omit<Corner, 'id'>;
   fha: FhaResult;
   sim: SimSummary | null;
   comparison: ComparisonRow[];

@@ -25,7 +25,8 @@ export interface CornerOutcome {
 }
 
 export function cornerInputs(c: Corner): CornerResult['inputs'] {
-  return { vin: c.vin, load: c.load, loadLabel: c.loadLabel, iout: c.iout, pout: c.pout, fs: c.fs, lr: c.lr, cr: c.cr, lm: c.lm, turnsRatio: c.turnsRatio, tolerance: c.tolerance };
+  const { id: _id, ...inputs } = c;
+  return inputs;
 }
 
 /**
