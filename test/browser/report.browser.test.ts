@@ -137,7 +137,7 @@ describe.skipIf(!hasChromium)('HTML report in headless Chromium', () => {
     expect(before).toBe(WAVES_OPEN);
     await big.locator('#more-waves > summary').click();
     // the figures are drawn by the details element's toggle event, after the click returns
-    await big.waitForFunction((n) => document.querySelectorAll('svg.plot.wave').length > n, before, { timeout: 10_000 });
+    await big.waitForFunction(`document.querySelectorAll('svg.plot.wave').length > ${before}`, undefined, { timeout: 10_000 });
     expect(await big.locator('svg.plot.wave').count()).toBeGreaterThan(before);
     expect(bigErrors).toEqual([]);
     await big.close();
