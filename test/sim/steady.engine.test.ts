@@ -75,4 +75,18 @@ describe('steady state on the demo nominal corner', () => {
     expect(m.gain).toBeLessThan(1.005);
     void spanRms;
   });
+
+  it('an integrated Lr (transformer leakage) simulates like the discrete Lr it replaces', async () => {
+    // Coupled inductors with all leakage on the primary are equivalent to Lleak = (1 - k^2) Lp,
+    // Lm = k^2 Lp and an ideal ratio k sqrt(Lp/Ls) (transformer T-model, common practice): with
+    // Lp = Lr + Lm, k^2 = Lm / (Lr + Lm) and Ls = Lm / n^2 the deck is the discrete tank.
+    const seed = fhaSeed(design, corner, fs, 24);
+    const integrated = { ...design, tank: { ...design.tank, integrated: true } };
+    const a = await simulateSteady(native, design, corner, fs, seed, opts);
+    const b = await simulateSteady(native, integrated, corner, fs, seed, opts);
+    expect(rel(b.metrics!.vout, a.metrics!.vout)).toBeLessThan(0.002);
+    expect(rel(b.metrics!.tankCurrentRms, a.metrics!.tankCurrentRms)).toBeLessThan(0.01);
+    expect(rel(b.metrics!.magnetizingCurrentPeak, a.metrics!.magnetizingCurrentPeak)).toBeLessThan(0.01);
+  });
 });
+
