@@ -56,6 +56,20 @@ export function savedVectors(design: Design): string[] {
   ];
 }
 
+/** Resistance of the shunt from every circuit node to ground, ohm (4 uA at 400 V). */
+export const NODE_SHUNT = 1e9;
+
+/** Every node of the deck except ground and the source-driven ones (vin, g1, g2). */
+export function circuitNodes(design: Design): string[] {
+  const fb = design.topology.inverter === 'full-bridge';
+  const fbr = design.topology.rectifier === 'full-bridge';
+  return [
+    'a', 'd1', 'd2', ...(fb ? ['b', 'd3', 'd4'] : []),
+    ...(design.tank.integrated ? [] : ['t1']), 't2', 't3', 'p',
+    's1', 's2', 'r1', 'r2', ...(fbr ? ['r3', 'r4'] : []), 'out', 'co',
+  ];
+}
+
 /** Initial winding currents of the secondary from the referred secondary current ir - im. */
 function secondaryCurrents(design: Design, n: number, seed: DeckSeed) {
   const isec = seed.ir - seed.im;
@@ -124,6 +138,7 @@ export function buildDeck(req: DeckRequest): Deck {
     vo0: seed.vo,
     load: corner.load,
     save: { raw: save.join(' ') },
+    shunts: { raw: circuitNodes(design).map((node) => `Rsh_${node} ${node} 0 1e9`).join('\n') },
     tstep: tmax,
     tstop,
     tstart,

@@ -9,14 +9,17 @@ import { finalState, toWaveforms } from '../netlist/waveforms.js';
 import { makeSpan, measure, spanAverage } from '../measure/index.js';
 import { predictCorner } from '../fha/predict.js';
 
+const ZERO_START_LABEL = 'zero-state start';
+
 /**
  * Retry ladder for convergence failures (they fail within milliseconds, so retrying is cheap):
- * a stronger shunt conductance, the other integration method, then a zero-state start.
+ * a stronger shunt conductance (system ngspice only: the wasm build ignores the option), the other
+ * integration method, then a zero-state start.
  */
 export const RETRY_RUNGS: readonly RetryRung[] = [
   { label: 'rshunt=1e7', transform: (d) => addRshunt(d, 1e7) },
   { label: 'other integration method', transform: switchIntegrationMethod },
-  { label: 'zero-state start', transform: (d) => d.replace(/ ic=[^ \n]+/g, ' ic=0') },
+  { label: ZERO_START_LABEL, transform: (d) => d.replace(/ ic=[^ \n]+/g, ' ic=0') },
 ];
 
 /** Settling and measurement window: whole switching cycles. */
@@ -136,6 +139,8 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
       return { fs, ok: false, failure: { ...res.failure!, detail }, settled: false, settleError: NaN, cycles, runs, windowStart: 0, attempts };
     }
     const w = toWaveforms(design, corner, fs, res.vectors);
+    // A zero-state retry is a new start: earlier windows no longer describe this trajectory.
+    if (res.attempts.at(-1)?.label === ZERO_START_LABEL) history.length = 0;
     history.push(...windowAverages(w, deck.tstart, period, K, windows));
     const err = settleErrorOf(history, K * period, tau, tauMax);
     state = finalState(w, res.vectors);

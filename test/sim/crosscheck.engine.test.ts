@@ -13,21 +13,25 @@ const native = createNgspiceEngine();
 afterAll(() => native.close());
 
 let demo: Design;
-let fixed: Results;
 let fr: number;
 beforeAll(async () => {
   demo = await loadDemo();
   fr = tankConstants(demo.tank).fr;
-  // Fixed frequencies around resonance at 390 V, full load; the last one is far below the
-  // zero-phase boundary (FHA fn_zp = 0.48 at this Q), which forces the capacitive region.
-  const design: Design = { ...demo, operating: { ...demo.operating, vin: [390], load: [{ kind: 'percent', value: 1 }],
-    frequency: [0.75 * fr, 0.85 * fr, fr, 1.25 * fr, 1.5 * fr, 0.42 * fr] } };
-  fixed = (await runStudy(design, { engine: native })).results;
-}, 240_000);
+});
 
-const at = (fn: number) => fixed.corners.find((c) => Math.abs(c.inputs.fs! / fr - fn) < 1e-6)!;
+for (const engineName of ['ngspice', 'wasm'] as const) describe(`cross-check on fixed-frequency corners of the demo (${engineName})`, () => {
+  let fixed: Results;
+  beforeAll(async () => {
+    // Fixed frequencies around resonance at 390 V, full load; the last one is far below the
+    // zero-phase boundary (FHA fn_zp = 0.48 at this Q), which forces the capacitive region.
+    const design: Design = { ...demo, operating: { ...demo.operating, vin: [390], load: [{ kind: 'percent', value: 1 }],
+      frequency: [0.75 * fr, 0.85 * fr, fr, 1.25 * fr, 1.5 * fr, 0.42 * fr] } };
+    const engine = engineName === 'wasm' ? createWasmEngine() : native;
+    fixed = (await runStudy(design, { engine })).results;
+    if (engine !== native) await engine.close();
+  }, 240_000);
+  const at = (fn: number) => fixed.corners.find((c) => Math.abs(c.inputs.fs! / fr - fn) < 1e-6)!;
 
-describe('cross-check on fixed-frequency corners of the demo (system ngspice)', () => {
   it('every corner simulated and settled', () => {
     expect(fixed.corners).toHaveLength(6);
     for (const c of fixed.corners) expect(c.sim?.settled).toBe(true);
