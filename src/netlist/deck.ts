@@ -56,10 +56,10 @@ export function savedVectors(design: Design): string[] {
   ];
 }
 
-/** Resistance of the shunt from every circuit node to ground, ohm (4 uA at 400 V). */
-export const NODE_SHUNT = 1e9;
-
-/** Every node of the deck except ground and the source-driven ones (vin, g1, g2). */
+/**
+ * Every node of the deck except ground and the source-driven ones (vin, g1, g2); each gets a
+ * 1 Gohm shunt to ground (4 uA at 400 V), the DC path that keeps the matrix regular.
+ */
 export function circuitNodes(design: Design): string[] {
   const fb = design.topology.inverter === 'full-bridge';
   const fbr = design.topology.rectifier === 'full-bridge';
