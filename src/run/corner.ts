@@ -60,11 +60,10 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
   }
   const sim: SimSummary = { ...steady.metrics, cycles, runs, simulations, settled: steady.settled, settleError: steady.settleError, fromCache: false };
   const cmp = compareCorner(design, fha, steady.metrics, regulated);
-  let status: CornerResult['status'] = !steady.settled ? 'not-settled' : cmp.divergences.length ? 'diverged' : 'ok';
+  const status: CornerResult['status'] = !steady.settled ? 'not-settled' : cmp.divergences.length ? 'diverged' : 'ok';
   const result: CornerResult = { ...base, sim, comparison: cmp.rows, divergences: cmp.divergences, status };
   if (!regulationMet) {
-    status = 'failed';
-    result.status = status;
+    result.status = 'failed';
     result.failure = { kind: 'regulation', message: `no switching frequency met ${design.output.voltage} V within 0.5 % in ${simulations} simulations (closest ${steady.metrics.vout.toPrecision(5)} V at ${(steady.fs / 1e3).toPrecision(5)} kHz)` };
   }
   return { result, waveform: excerpt(corner.id, steady.waveforms as Waveforms, steady.windowStart, WINDOW_CYCLES) };
