@@ -12,8 +12,7 @@ export function bridgeFactor(design: Design): number {
 }
 
 /** Total forward drop in the rectifier current path: VF (center-tapped) or 2 VF (full-bridge). */
-export function rectifierDrop(design: Design): number {
-  const vf = design.rectifier.forwardVoltage;
+export function rectifierDrop(design: Design, vf = design.rectifier.forwardVoltage): number {
   return design.topology.rectifier === 'center-tapped' ? vf : 2 * vf;
 }
 

@@ -3,6 +3,7 @@ import type { Corner } from '../corners/types.js';
 import type { Waveforms, SwitchTrace, DiodeTrace } from '../measure/types.js';
 import type { DeckSeed } from './types.js';
 import { MIN_KNEE_VOLTAGE } from './devices.js';
+import { rectifierDrop } from '../fha/predict.js';
 
 type Vectors = Record<string, Float64Array>;
 
@@ -90,6 +91,6 @@ export function finalState(w: Waveforms, v: Vectors): DeckSeed {
  * never drops less than MIN_KNEE_VOLTAGE (a user diode model is taken at the design's value).
  */
 export function modelDrop(design: Design): number {
-  const vf = design.devices.diodeModel ? design.rectifier.forwardVoltage : Math.max(design.rectifier.forwardVoltage, MIN_KNEE_VOLTAGE);
-  return design.topology.rectifier === 'center-tapped' ? vf : 2 * vf;
+  const vf = design.rectifier.forwardVoltage;
+  return rectifierDrop(design, design.devices.diodeModel ? vf : Math.max(vf, MIN_KNEE_VOLTAGE));
 }
