@@ -3,30 +3,18 @@ import { readFileSync } from 'node:fs';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createEngine } from './index.js';
 import type { SimResult } from './types.js';
+import { locate, valueAt } from '../measure/window.js';
 
 const deckFile = (name: string) => readFileSync(new URL(`../../test/fixtures/raw/${name}`, import.meta.url), 'latin1');
 const engines = [createEngine('ngspice'), createEngine('wasm')];
 afterAll(() => Promise.all(engines.map((e) => e.close())));
 const runBoth = (deck: string) => Promise.all(engines.map((e) => e.run({ id: e.name, deck, timeoutMs: 20_000 })));
 
-/** Linear interpolation of (t, y) at x; t ascending. */
-function interp(t: Float64Array, y: Float64Array, x: number): number {
-  let lo = 0;
-  let hi = t.length - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (t[mid] <= x) lo = mid;
-    else hi = mid;
-  }
-  const w = t[hi] === t[lo] ? 0 : (x - t[lo]) / (t[hi] - t[lo]);
-  return y[lo] + w * (y[hi] - y[lo]);
-}
-
 /** Largest difference of `name` between two results on the first one's grid, relative to its peak. */
 function relativeGap(a: SimResult, b: SimResult, name: string): number {
   const ya = a.vectors[name];
   const peak = ya.reduce((m, v) => Math.max(m, Math.abs(v)), 0);
-  return a.vectors.time.reduce((m, t, i) => Math.max(m, Math.abs(ya[i] - interp(b.vectors.time, b.vectors[name], t))), 0) / peak;
+  return a.vectors.time.reduce((m, t, i) => Math.max(m, Math.abs(ya[i] - valueAt(b.vectors[name], locate(b.vectors.time, t)))), 0) / peak;
 }
 
 describe('native ngspice and wasm agree', () => {
