@@ -2,8 +2,8 @@ import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
   test: {
-    include: ['src/**/*.test.ts', 'test/**/*.test.ts'],
-    exclude: ['test/heavy/**', 'node_modules/**'],
+    include: ['src/**/*.test.ts', 'tests/**/*.test.ts'],
+    exclude: ['tests/heavy/**', 'node_modules/**'],
     testTimeout: 120_000,
     hookTimeout: 120_000,
     pool: 'forks',

@@ -16,7 +16,7 @@ export { measure } from './measure/index.js';
 export type { Waveforms, SimMetrics, MeasureWindow } from './measure/types.js';
 export { compareCorner } from './compare/compare.js';
 export { compareBaseline } from './compare/baseline.js';
-export type * from './report/types.js';
+export type * from './results/types.js';
 export { renderResultsJson, renderWaveformsJson } from './report/json.js';
 export { renderResultsCsv } from './report/csv.js';
 export { renderJunit } from './report/junit.js';

@@ -1,4 +1,4 @@
-import type { Results } from '../report/types.js';
+import type { Results } from '../results/types.js';
 
 /** Exit codes, one table (README "Exit codes"). */
 export const EXIT = {

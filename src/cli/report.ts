@@ -1,7 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import { dirname, join } from 'node:path';
 import type { Design } from '../design/types.js';
-import type { Results, WaveformExcerpt } from '../report/types.js';
+import type { Results, WaveformExcerpt } from '../results/types.js';
 import { renderHtmlReport } from '../report/html/index.js';
 import { writeFilesAtomic } from '../run/files.js';
 import { UsageError } from './exit.js';

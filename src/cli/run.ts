@@ -1,7 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { Design } from '../design/types.js';
-import type { Results } from '../report/types.js';
+import type { Results } from '../results/types.js';
 import { createEngine, defaultJobs, maxJobs, EngineUnavailableError } from '../engine/index.js';
 import { runStudy } from '../run/study.js';
 import { expandCorners, filterCorners } from '../corners/expand.js';

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { compareBaseline } from './baseline.js';
 import { predictStudy } from '../run/study.js';
-import { makeDesign } from '../../test/support/design.js';
-import type { Results } from '../report/types.js';
+import { makeDesign } from '../../tests/support/design.js';
+import type { Results } from '../results/types.js';
 
 function withSim(r: Results, scale = 1): Results {
   const copy = structuredClone(r);

@@ -1,4 +1,4 @@
-import type { BaselineReport, Results } from '../report/types.js';
+import type { BaselineReport, Results } from '../results/types.js';
 import { COMPARED } from './compare.js';
 
 /** Default relative change of a simulated metric that counts as a regression against a baseline. */

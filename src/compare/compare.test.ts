@@ -3,7 +3,7 @@ import { compareCorner } from './compare.js';
 import { zoneOf } from './reasons.js';
 import { predictCorner } from '../fha/predict.js';
 import { expandCorners } from '../corners/expand.js';
-import { makeDesign } from '../../test/support/design.js';
+import { makeDesign } from '../../tests/support/design.js';
 import type { SimMetrics } from '../measure/types.js';
 
 const design = makeDesign();

@@ -1,7 +1,7 @@
 import type { Design } from '../design/types.js';
 import type { FhaResult } from '../fha/types.js';
 import type { SimMetrics } from '../measure/types.js';
-import type { ComparisonRow, Divergence } from '../report/types.js';
+import type { ComparisonRow, Divergence } from './types.js';
 import { explainCurrent, explainFrequency, explainGain, explainStatus, zoneOf, type Zone } from './reasons.js';
 
 type Group = 'fs' | 'vout' | 'gain' | 'currents' | 'voltages';

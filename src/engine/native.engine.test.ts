@@ -7,7 +7,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { EngineUnavailableError } from './errors.js';
 import { createNgspiceEngine } from './native.js';
 
-const deckFile = (name: string) => readFileSync(new URL(`../../test/fixtures/raw/${name}`, import.meta.url), 'latin1');
+const deckFile = (name: string) => readFileSync(new URL(`../../shared/raw/${name}`, import.meta.url), 'latin1');
 const scratch = mkdtempSync(join(tmpdir(), 'tankcheck-native-test-'));
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 const engine = createNgspiceEngine({ tmpRoot: scratch });

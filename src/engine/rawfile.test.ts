@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { normaliseVectorName, parseRaw, RawFormatError } from './rawfile.js';
 
-const fixture = (name: string) => readFileSync(new URL(`../../test/fixtures/raw/${name}`, import.meta.url));
+const fixture = (name: string) => readFileSync(new URL(`../../shared/raw/${name}`, import.meta.url));
 
 describe('parseRaw on a transient plot (ngspice-39, rc-tran.cir)', () => {
   const [plot] = parseRaw(fixture('rc-tran.ngspice39.raw'));

@@ -1,7 +1,7 @@
 /**
  * Pure parser for ngspice raw files (the `-r file.raw` / `write file.raw` output). No I/O.
  *
- * Format (read from ngspice-39 and ngspice-45.2 output; fixtures in test/fixtures/raw/):
+ * Format (read from ngspice-39 and ngspice-45.2 output; fixtures in shared/raw/):
  * a file holds one or more plots back to back. Each plot is a text header, one `Key: value` per line,
  * decoded here as latin1 so that character offsets equal byte offsets:
  *

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { parseRaw } from './rawfile.js';
 import { assembleResult, implausibleVectors, plotVectors } from './result.js';
 
-const fixture = (name: string) => readFileSync(new URL(`../../test/fixtures/raw/${name}`, import.meta.url));
+const fixture = (name: string) => readFileSync(new URL(`../../shared/raw/${name}`, import.meta.url));
 
 describe('plotVectors', () => {
   it('puts the scale first, sorts the rest, and splits complex vectors into real()/imag()', () => {

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { finishRun } from './wasm-protocol.js';
 
-const raw = (name: string) => new Uint8Array(readFileSync(new URL(`../../test/fixtures/raw/${name}`, import.meta.url)));
+const raw = (name: string) => new Uint8Array(readFileSync(new URL(`../../shared/raw/${name}`, import.meta.url)));
 const job = { id: 'j', deck: 'x\n.end\n', timeoutMs: 1000 };
 const done = (over: object) => ({ type: 'done' as const, jobId: 1, lines: [], nonceOk: true, constants: false, ...over });
 

@@ -7,7 +7,7 @@ import { execa } from 'execa';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createWasmEngine } from './wasm.js';
 
-const deckFile = (name: string) => readFileSync(new URL(`../../test/fixtures/raw/${name}`, import.meta.url), 'latin1');
+const deckFile = (name: string) => readFileSync(new URL(`../../shared/raw/${name}`, import.meta.url), 'latin1');
 const engine = createWasmEngine({ workers: 1 });
 afterAll(() => engine.close());
 

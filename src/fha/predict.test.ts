@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { predictCorner, tankConstants } from './predict.js';
 import { expandCorners } from '../corners/expand.js';
-import { makeDesign } from '../../test/support/design.js';
+import { makeDesign } from '../../tests/support/design.js';
 import type { Design } from '../design/types.js';
 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);

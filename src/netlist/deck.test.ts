@@ -5,7 +5,7 @@ import { fhaSeed } from './seed.js';
 import { diodeFit, THERMAL_VOLTAGE } from './devices.js';
 import { expandCorners } from '../corners/expand.js';
 import { predictCorner } from '../fha/predict.js';
-import { makeDesign } from '../../test/support/design.js';
+import { makeDesign } from '../../tests/support/design.js';
 import type { Design } from '../design/types.js';
 import { TEMPLATES } from './templateText.js';
 import { generate } from '../../scripts/gen-templates.mjs';
@@ -30,7 +30,7 @@ describe('golden decks (normalised text)', () => {
         const d = makeDesign({ name: 'golden', topology: { inverter, rectifier }, tank: { lr: 50e-6, cr: 50e-9, lm: 250e-6, turnsRatio: 4, integrated },
           rectifier: { forwardVoltage: 0.7, resistance: 0.01 } });
         const text = deckFor(d).text;
-        const file = new URL(`../../test/golden/${name}`, import.meta.url);
+        const file = new URL(`../../shared/golden/${name}`, import.meta.url);
         if (process.env['UPDATE_GOLDEN'] || !existsSync(file)) writeFileSync(file, text);
         expect(normalise(text)).toBe(normalise(readFileSync(file, 'utf8')));
       });

@@ -1,4 +1,4 @@
-import type { Results } from './types.js';
+import type { Results } from '../results/types.js';
 
 const HEADER = ['corner', 'status', 'vin_V', 'load_ohm', 'metric', 'fha', 'sim', 'error', 'tolerance', 'verdict', 'unexpected_sign', 'reason'];
 

@@ -1,5 +1,5 @@
 import type { Waveforms } from '../measure/types.js';
-import type { WaveformExcerpt } from './types.js';
+import type { WaveformExcerpt } from '../results/types.js';
 
 /** Points per series kept for the report (evenly spaced in time, linearly interpolated). */
 export const EXCERPT_POINTS = 600;

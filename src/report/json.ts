@@ -1,4 +1,4 @@
-import type { Results, WaveformExcerpt } from './types.js';
+import type { Results, WaveformExcerpt } from '../results/types.js';
 
 /**
  * results.json text: two-space indentation, keys in construction order, non-finite numbers as null.

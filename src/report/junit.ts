@@ -1,4 +1,4 @@
-import type { Results } from './types.js';
+import type { Results } from '../results/types.js';
 
 export function xmlEscape(s: string): string {
   return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' })[c]!)

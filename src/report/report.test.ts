@@ -6,8 +6,8 @@ import { renderJunit } from './junit.js';
 import { renderResultsJson } from './json.js';
 import { renderFhaTable, renderRunTable } from './table.js';
 import { predictStudy } from '../run/study.js';
-import { makeDesign } from '../../test/support/design.js';
-import type { Results } from './types.js';
+import { makeDesign } from '../../tests/support/design.js';
+import type { Results } from '../results/types.js';
 
 const results: Results = predictStudy(makeDesign({ name: 'a "quoted", <odd> & name', operating: { vin: [380, 400], load: [{ kind: 'ohm', value: 4 }], ratedPower: 676, frequency: [90e3, 120e3], corners: [] } }));
 results.corners[0]!.status = 'diverged';

@@ -1,4 +1,4 @@
-import type { CornerResult, Results } from './types.js';
+import type { CornerResult, Results } from '../results/types.js';
 
 export interface TableOptions {
   /** ANSI emphasis for flagged cells and statuses (only on a TTY). @default false */

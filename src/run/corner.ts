@@ -3,7 +3,7 @@ import type { Corner } from '../corners/types.js';
 import type { FhaResult } from '../fha/types.js';
 import type { SimEngine } from '../engine/types.js';
 import type { Waveforms } from '../measure/types.js';
-import type { CornerResult, SimSummary, WaveformExcerpt } from '../report/types.js';
+import type { CornerResult, SimSummary, WaveformExcerpt } from '../results/types.js';
 import { compareCorner } from '../compare/compare.js';
 import { simulateSteady, WINDOW_CYCLES } from './steady.js';
 import { regulate } from './regulate.js';

@@ -1,11 +1,11 @@
 import type { Design } from '../design/types.js';
 import type { Corner } from '../corners/types.js';
 import type { SimEngine } from '../engine/types.js';
-import type { CornerResult, Results, WaveformExcerpt } from '../report/types.js';
+import type { CornerResult, Results, WaveformExcerpt } from '../results/types.js';
 import { expandCorners, filterCorners } from '../corners/expand.js';
 import { predictCorner } from '../fha/predict.js';
 import { compareCorner } from '../compare/compare.js';
-import { summarize } from '../report/summary.js';
+import { summarize } from '../results/summary.js';
 import { cornerInputs, simulateCorner, type CornerOutcome } from './corner.js';
 import { startPoint, type StartPoint } from './seed.js';
 import { mapPool } from '../engine/pool.js';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { tdParamsFromCorner } from './params.js';
-import { makeDesign } from '../../test/support/design.js';
+import { makeDesign } from '../../tests/support/design.js';
 
 describe('tdParamsFromCorner', () => {
   it('maps the design and corner fields one to one (SI units, no conversion)', () => {

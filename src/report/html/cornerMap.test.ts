@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { predictStudy } from '../../run/study.js';
-import type { CornerResult } from '../types.js';
+import type { CornerResult } from '../../results/types.js';
 import { renderCornerMap, tankGroups, zcsText, zvsText } from './cornerMap.js';
 import { loadDemo } from './fixture.test-support.js';
 

@@ -1,6 +1,6 @@
 /** Corner map: a Vin x load grid per tank tolerance set, verdict as symbol + text + colour. Pure. */
 import type { Design } from '../../design/types.js';
-import type { CornerResult, CornerStatus, Results } from '../types.js';
+import type { CornerResult, CornerStatus, Results } from '../../results/types.js';
 import { esc, rowAnchor } from './escape.js';
 import { eng, num } from './format.js';
 import { knownStatus, STATUS_STYLE, statusText } from './palette.js';

@@ -2,13 +2,13 @@
 import { readFileSync } from 'node:fs';
 import type { Design } from '../../design/types.js';
 import { loadDesignOrThrow } from '../../design/load.js';
-import type { CornerResult, Results, WaveformExcerpt } from '../types.js';
+import type { CornerResult, Results, WaveformExcerpt } from '../../results/types.js';
 
-const here = (f: string) => new URL(`./testdata/${f}`, import.meta.url);
+const here = (f: string) => new URL(`../../../shared/report/${f}`, import.meta.url);
 
 /**
  * Recorded output of `tankcheck run examples/demo.yaml --engine ngspice` (ngspice-39): the full
- * results and the waveform excerpts of three of its six corners (see testdata/README.md).
+ * results and the waveform excerpts of three of its six corners (see shared/report/README.md).
  */
 export async function loadDemo(): Promise<{ results: Results; waveforms: WaveformExcerpt[]; design: Design }> {
   const results = JSON.parse(readFileSync(here('demo-results.json'), 'utf8')) as Results;

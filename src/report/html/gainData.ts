@@ -2,7 +2,7 @@
 import type { Design } from '../../design/types.js';
 import { fhaGain, zeroPhaseFn } from '../../fha/gain.js';
 import { acResistance, bridgeFactor, rectifierDrop, tankConstants } from '../../fha/predict.js';
-import type { CornerResult, Results } from '../types.js';
+import type { CornerResult, Results } from '../../results/types.js';
 import { finite } from './format.js';
 import { niceDomain } from './svg.js';
 

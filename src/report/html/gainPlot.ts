@@ -1,6 +1,6 @@
 /** The gain-against-switching-frequency section: one SVG panel per input voltage. Pure. */
 import type { Design } from '../../design/types.js';
-import type { Results } from '../types.js';
+import type { Results } from '../../results/types.js';
 import { esc, rowAnchor } from './escape.js';
 import { num, pct } from './format.js';
 import { type GainFigureData, type GainPanel, type GainPoint, gainFigureData } from './gainData.js';

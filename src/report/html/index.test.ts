@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Results } from '../types.js';
+import type { Results } from '../../results/types.js';
 import { rowAnchor, waveAnchor } from './escape.js';
 import { loadDemo, syntheticStudy } from './fixture.test-support.js';
 import { renderHtmlReport, SECTIONS } from './index.js';

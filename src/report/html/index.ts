@@ -3,7 +3,7 @@
  * of inline script; no external resource of any kind (a Content-Security-Policy forbids loading one).
  */
 import type { Design } from '../../design/types.js';
-import type { Results, WaveformExcerpt } from '../types.js';
+import type { Results, WaveformExcerpt } from '../../results/types.js';
 import { renderCornerMap } from './cornerMap.js';
 import { esc } from './escape.js';
 import { renderGainSection } from './gainPlot.js';

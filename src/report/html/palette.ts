@@ -1,4 +1,4 @@
-import type { CornerStatus } from '../types.js';
+import type { CornerStatus } from '../../results/types.js';
 
 /**
  * Colours after the Okabe-Ito palette (distinct under the common colour-vision deficiencies), each

@@ -1,5 +1,5 @@
 /** Summary section: identity of the run, counts by status, largest divergences, baseline. Pure. */
-import type { Results } from '../types.js';
+import type { Results } from '../../results/types.js';
 import { esc, rowAnchor } from './escape.js';
 import { pct, pctAbs } from './format.js';
 import { STATUS_ORDER, STATUS_STYLE } from './palette.js';

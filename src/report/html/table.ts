@@ -1,5 +1,5 @@
 /** The side-by-side FHA | sim | error table, sortable and filterable by the page script. Pure. */
-import type { ComparisonRow, CornerResult, Results } from '../types.js';
+import type { ComparisonRow, CornerResult, Results } from '../../results/types.js';
 import { esc, rowAnchor, waveAnchor } from './escape.js';
 import { finite, num, pct, sig } from './format.js';
 import { knownStatus, STATUS_ORDER, STATUS_STYLE, statusText } from './palette.js';

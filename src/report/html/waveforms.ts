@@ -1,5 +1,5 @@
 /** Waveform figures: five stacked panels per corner over the two-cycle excerpt. Pure. */
-import type { CornerResult, Results, WaveformExcerpt } from '../types.js';
+import type { CornerResult, Results, WaveformExcerpt } from '../../results/types.js';
 import { esc, rowAnchor, waveAnchor } from './escape.js';
 import { finite, num } from './format.js';
 import { seriesColour, seriesDash, statusText } from './palette.js';

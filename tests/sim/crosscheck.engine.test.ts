@@ -7,7 +7,7 @@ import { runStudy } from '../../src/run/study.js';
 import { tankConstants } from '../../src/fha/predict.js';
 import { loadDemo } from '../support/demo.js';
 import type { Design } from '../../src/design/types.js';
-import type { Results } from '../../src/report/types.js';
+import type { Results } from '../../src/results/types.js';
 
 const native = createNgspiceEngine();
 afterAll(() => native.close());

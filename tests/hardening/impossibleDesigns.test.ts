@@ -11,7 +11,7 @@ import { baseTree, emit, setAt, type Tree } from './support/designText.js';
 const dir = mkdtempSync(join(tmpdir(), 'tankcheck-phys-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 const NOT_A_NUMBER = /NaN|Infinity|undefined/;
-/** The heavy suite (test/heavy) multiplies the case count and draws a fresh seed. */
+/** The heavy suite (tests/heavy) multiplies the case count and draws a fresh seed. */
 const SCALE = Number(process.env['TANKCHECK_FUZZ_SCALE'] ?? '1');
 
 function designFile(name: string, edits: Record<string, string | Tree | undefined>): string {

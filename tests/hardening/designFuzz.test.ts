@@ -18,7 +18,7 @@ afterEach(() => cleanTargets(t));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 /**
- * Fixed seeds keep the default suite reproducible; the heavy suite (test/heavy) multiplies the case
+ * Fixed seeds keep the default suite reproducible; the heavy suite (tests/heavy) multiplies the case
  * counts by TANKCHECK_FUZZ_SCALE and draws fresh seeds. A failure prints its seed and the shrunk case.
  */
 const SCALE = Number(process.env['TANKCHECK_FUZZ_SCALE'] ?? '1');

@@ -11,7 +11,7 @@ import { createNgspiceEngine } from '../../src/engine/native.js';
 import { renderHtmlReport } from '../../src/report/html/index.js';
 import { WAVES_OPEN } from '../../src/report/html/waveforms.js';
 import { syntheticStudy } from '../../src/report/html/fixture.test-support.js';
-import type { Results, WaveformExcerpt } from '../../src/report/types.js';
+import type { Results, WaveformExcerpt } from '../../src/results/types.js';
 import { runStudy } from '../../src/run/study.js';
 
 const CHROMIUM = '/usr/bin/chromium';
