@@ -8,7 +8,7 @@ export type { FhaResult } from './fha/types.js';
 export { fhaGain, inputImpedance, inputPhase, zeroPhaseFn, peakGainFn, fnForGain } from './fha/gain.js';
 export { predictCorner, tankConstants, acResistance, bridgeFactor, rectifierDrop } from './fha/predict.js';
 export { buildDeck, savedVectors, STEP_PROFILES, type Deck, type DeckRequest } from './netlist/deck.js';
-export { fhaSeed } from './netlist/seed.js';
+export { fhaSeed } from './netlist/fhaState.js';
 export { toWaveforms, finalState } from './netlist/waveforms.js';
 export type { DeckSeed } from './netlist/types.js';
 export * from './engine/index.js';

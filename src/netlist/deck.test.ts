@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { buildDeck } from './deck.js';
-import { fhaSeed } from './seed.js';
+import { fhaSeed } from './fhaState.js';
 import { diodeFit, THERMAL_VOLTAGE } from './devices.js';
 import { expandCorners } from '../corners/expand.js';
 import { predictCorner } from '../fha/predict.js';

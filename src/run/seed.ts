@@ -2,7 +2,7 @@ import type { Design } from '../design/types.js';
 import type { Corner } from '../corners/types.js';
 import type { FhaResult } from '../fha/types.js';
 import type { DeckSeed } from '../netlist/types.js';
-import { fhaSeed } from '../netlist/seed.js';
+import { fhaSeed } from '../netlist/fhaState.js';
 import { diodeFit, THERMAL_VOLTAGE } from '../netlist/devices.js';
 import { solveFrequency, solveSteadyState, tdParamsFromCorner, type TdParams, type SeedState } from '../tdmodel/index.js';
 import { fhaSlope } from './regulate.js';

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createNgspiceEngine, createWasmEngine } from '../../src/engine/index.js';
 import { expandCorners } from '../../src/corners/expand.js';
 import { predictCorner } from '../../src/fha/predict.js';
-import { fhaSeed } from '../../src/netlist/seed.js';
+import { fhaSeed } from '../../src/netlist/fhaState.js';
 import { buildDeck } from '../../src/netlist/deck.js';
 import { toWaveforms } from '../../src/netlist/waveforms.js';
 import { simulateSteady } from '../../src/run/steady.js';
