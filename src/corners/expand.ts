@@ -44,7 +44,7 @@ function tolIdPart(t: Corner['tolerance']): string {
   return `lr${SIDE_CODE[t.lr]}-cr${SIDE_CODE[t.cr]}-lm${SIDE_CODE[t.lm]}`;
 }
 
-/** Tolerance sets in a fixed order: nominal first, then every +/- combination (lr, cr, lm). */
+/** Tolerance sets in a fixed order: nominal first, then every low/high combination (lr, cr, lm): 9 sets, fewer when a tolerance is 0 (that element stays nominal). */
 export function toleranceSets(design: Design): Corner['tolerance'][] {
   const sets: Corner['tolerance'][] = [{ lr: 0, cr: 0, lm: 0 }];
   if (design.tolerances.corners === 'nominal') return sets;

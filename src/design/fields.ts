@@ -77,7 +77,7 @@ export const SECTION_FIELDS = {
     lr: tol('Relative tolerance of Lr, 0 to below 50 %.'),
     cr: tol('Relative tolerance of Cr, 0 to below 50 %.'),
     lm: tol('Relative tolerance of Lm, 0 to below 50 %.'),
-    corners: { kind: 'enum', values: ['extremes', 'nominal'], default: 'nominal', description: 'nominal: tank at nominal values only; extremes: every -/0/+ combination of Lr, Cr, Lm.' } as EnumSpec,
+    corners: { kind: 'enum', values: ['extremes', 'nominal'], default: 'nominal', description: 'nominal: tank at nominal values only; extremes: nominal plus every low/high combination of Lr, Cr, Lm (9 sets; an element with 0 tolerance stays nominal).' } as EnumSpec,
   },
   compare: {
     vout: limit(0.03, 'Allowed relative difference between FHA and simulated output voltage.'),

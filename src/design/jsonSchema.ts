@@ -46,7 +46,7 @@ const SECTION_TEXT: Record<SectionName, string> = {
   switches: 'Primary switches and dead time.',
   rectifier: 'Secondary rectifier diodes.',
   output: 'Output filter and regulation target.',
-  tolerances: 'Component tolerances; with corners: extremes every -/0/+ combination of Lr, Cr, Lm is checked.',
+  tolerances: 'Component tolerances; with corners: extremes the nominal set and every low/high combination of Lr, Cr, Lm are checked (9 sets).',
   compare: 'Allowed FHA-versus-simulation differences, as fractions.',
   simulation: 'Simulation control.',
 };
