@@ -40,9 +40,9 @@ describe('loadDesign', () => {
     expect(r.ok).toBe(false);
     if (!r.ok) {
       expect(r.problems.map((p) => formatProblem(p, 'evil.yaml').replace(dir, '<dir>'))).toEqual([
-        '<dir>/evil.lib:3:1 devices.diodeModel.file: ".control" is not allowed in a model file: a .control block runs simulator commands',
-        '<dir>/evil.lib:4:1 devices.diodeModel.file: "shell" is not allowed in a model file: shell commands are never allowed',
-        '<dir>/evil.lib:5:1 devices.diodeModel.file: ".endc" is not allowed in a model file: a .control block runs simulator commands',
+        '<dir>/evil.lib:3:1: devices.diodeModel.file: ".control" is not allowed in a model file: a .control block runs simulator commands',
+        '<dir>/evil.lib:4:1: devices.diodeModel.file: "shell" is not allowed in a model file: shell commands are never allowed',
+        '<dir>/evil.lib:5:1: devices.diodeModel.file: ".endc" is not allowed in a model file: a .control block runs simulator commands',
       ]);
     }
   });
@@ -50,12 +50,12 @@ describe('loadDesign', () => {
     write('d2.lib', DIODE);
     const r = await loadDesign(write('wrong-name.yaml', withDevices('d2.lib', 'DSLOW')));
     expect(!r.ok && r.problems.map((p) => formatProblem(p, 'w.yaml').replace(dir, '<dir>'))).toEqual([
-      '<dir>/d2.lib devices.diodeModel.name: "DSLOW" is not defined by a .model or .subckt line in "d2.lib" (found: DFAST)',
+      '<dir>/d2.lib: devices.diodeModel.name: "DSLOW" is not defined by a .model or .subckt line in "d2.lib" (found: DFAST)',
     ]);
     const m = await loadDesign(write('missing-model.yaml', withDevices('nope.lib')));
     expect(!m.ok && m.problems.map((p) => formatProblem(p, 'm.yaml').replace(dir, '<dir>'))).toEqual([
       // the design file's line that names the model file (withDevices appends it as the last line)
-      `m.yaml:${demo.split('\n').length + 1}:22 devices.diodeModel.file: model file "nope.lib" (looked for <dir>/nope.lib): the file does not exist`,
+      `m.yaml:${demo.split('\n').length + 1}:22: devices.diodeModel.file: model file "nope.lib" (looked for <dir>/nope.lib): the file does not exist`,
     ]);
   });
   it('refuses a model path that is not a regular file (FIFO, device, directory) at once, without blocking on it', async () => {
@@ -71,7 +71,7 @@ describe('loadDesign', () => {
     const path = write('latin1.yaml', Buffer.from(demo.replace('  lr: 60 uH\n', '  lr: 60 \u00b5H\n'), 'latin1'));
     const r = await loadDesign(path);
     expect(!r.ok && r.problems.map((p) => formatProblem(p, 'latin1.yaml'))).toEqual([
-      'latin1.yaml:9:10 byte 0xB5 is not valid UTF-8; save the design file as UTF-8',
+      'latin1.yaml:9:10: byte 0xB5 is not valid UTF-8; save the design file as UTF-8',
     ]);
   });
   it('refuses files over 1 MB, directories and missing files', async () => {
@@ -92,7 +92,7 @@ describe('loadDesignOrThrow', () => {
     expect(err).toBeInstanceOf(DesignError);
     expect((err as DesignError).problems.map((p) => p.path)).toEqual(['tank.lr', 'output.esr']);
     expect((err as DesignError).message.split('\n')).toHaveLength(2);
-    expect((err as DesignError).message).toMatch(/^.*two-errors\.yaml:9:7 tank\.lr: /);
+    expect((err as DesignError).message).toMatch(/^.*two-errors\.yaml:9:7: tank\.lr: /);
   });
 });
 
@@ -102,6 +102,6 @@ describe('model file paths in problems', () => {
     const rel = relative(process.cwd(), write('rel.yaml', withDevices('rel.lib')));
     const r = await loadDesign(rel);
     expect(!r.ok && r.problems[0].file).toBe(relative(process.cwd(), join(dir, 'rel.lib')));
-    expect(!r.ok && formatProblem(r.problems[0], rel)).toMatch(/^\.\..*rel\.lib:1:1 devices\.diodeModel\.file: "\.control" is not allowed/);
+    expect(!r.ok && formatProblem(r.problems[0], rel)).toMatch(/^\.\..*rel\.lib:1:1: devices\.diodeModel\.file: "\.control" is not allowed/);
   });
 });

@@ -11,7 +11,7 @@ import { decodeUtf8 } from './utf8.js';
 /** Largest design or model file read, in bytes. @default 1 MB */
 export const MAX_FILE_BYTES = 1_000_000;
 
-/** Thrown by `loadDesignOrThrow`; `message` lists every problem as `file:line:column path: message`. */
+/** Thrown by `loadDesignOrThrow`; `message` lists every problem as `file:line:column: path: message`. */
 export class DesignError extends Error {
   override readonly name = 'DesignError';
   constructor(

@@ -46,11 +46,11 @@ describe('operating', () => {
   });
   it('needs vin and load unless corners are given, and both together', () => {
     expect(withOperating('  ratedPower: 240 W').errors).toEqual([
-      'd.yaml:24:1 operating.vin: missing required key "vin"',
-      'd.yaml:24:1 operating.load: missing required key "load"',
+      'd.yaml:24:1: operating.vin: missing required key "vin"',
+      'd.yaml:24:1: operating.load: missing required key "load"',
     ]);
     expect(withOperating('  vin: 390 V\n  ratedPower: 240 W\n  corners: [{vin: 390 V, load: 50%}]').errors).toEqual([
-      'd.yaml:24:1 operating.load: missing required key "load"',
+      'd.yaml:24:1: operating.load: missing required key "load"',
     ]);
   });
   it('reports every bad corner entry with its path', () => {
@@ -62,19 +62,19 @@ describe('operating', () => {
       '    - 5',
     ].join('\n'));
     expect(errors).toEqual([
-      'd.yaml:27:7 operating.corners[0].load: missing required key "load"',
-      'd.yaml:28:26 operating.corners[1].load: expected a load > 0 such as "50%", "12 ohm", "5 A" or "120 W", got "0%": for a very light load use a small share such as "1%"',
-      'd.yaml:28:41 operating.corners[1].frequency: expected a frequency > 0 Hz such as "100 kHz", a list of them, or "regulate", got "regulated": did you mean "regulate"?',
-      'd.yaml:28:52 operating.corners[1].lx: unknown key "lx"; did you mean "lr"?',
-      'd.yaml:29:7 operating.corners[2]: expected a mapping with vin, load and optional frequency, lr, cr, lm, got "5"',
+      'd.yaml:27:7: operating.corners[0].load: missing required key "load"',
+      'd.yaml:28:26: operating.corners[1].load: expected a load > 0 such as "50%", "12 ohm", "5 A" or "120 W", got "0%": for a very light load use a small share such as "1%"',
+      'd.yaml:28:41: operating.corners[1].frequency: expected a frequency > 0 Hz such as "100 kHz", a list of them, or "regulate", got "regulated": did you mean "regulate"?',
+      'd.yaml:28:52: operating.corners[1].lx: unknown key "lx"; did you mean "lr"?',
+      'd.yaml:29:7: operating.corners[2]: expected a mapping with vin, load and optional frequency, lr, cr, lm, got "5"',
     ]);
   });
   it('refuses regulate inside a frequency list, empty lists and bare-number loads', () => {
     const { errors } = withOperating('  vin: []\n  load: [50%, 12]\n  ratedPower: 240 W\n  frequency: [100 kHz, regulate]');
     expect(errors).toEqual([
-      'd.yaml:25:8 operating.vin: the list is empty; give at least one value',
-      'd.yaml:26:15 operating.load[1]: expected a load > 0 such as "50%", "12 ohm", "5 A" or "120 W", got "12": has no unit; write "%", "ohm", "A" or "W" after the number',
-      'd.yaml:28:24 operating.frequency[1]: expected a frequency > 0 Hz such as "100 kHz", got "regulate": write "frequency: regulate" alone, not inside a list of fixed frequencies',
+      'd.yaml:25:8: operating.vin: the list is empty; give at least one value',
+      'd.yaml:26:15: operating.load[1]: expected a load > 0 such as "50%", "12 ohm", "5 A" or "120 W", got "12": has no unit; write "%", "ohm", "A" or "W" after the number',
+      'd.yaml:28:24: operating.frequency[1]: expected a frequency > 0 Hz such as "100 kHz", got "regulate": write "frequency: regulate" alone, not inside a list of fixed frequencies',
     ]);
   });
   it('caps list lengths', () => {

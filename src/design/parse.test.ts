@@ -41,9 +41,9 @@ describe('demo.yaml', () => {
 });
 
 describe('problem reports', () => {
-  it('formats a problem as file:line:column path: message', () => {
+  it('formats a problem as file:line:column: path: message', () => {
     const [p] = problems(demo.replace('lm: 300 uH', 'lm: abc'));
-    expect(formatProblem(p, 'demo.yaml')).toBe('demo.yaml:11:7 tank.lm: expected an inductance > 0 H such as "310 uH", got "abc"');
+    expect(formatProblem(p, 'demo.yaml')).toBe('demo.yaml:11:7: tank.lm: expected an inductance > 0 H such as "310 uH", got "abc"');
     expect(p).toMatchObject({ code: 'value', path: 'tank.lm', line: 11, column: 7, expected: 'an inductance > 0 H such as "310 uH"', received: '"abc"' });
   });
 
@@ -58,40 +58,40 @@ describe('problem reports', () => {
       .replace('lr: 5%', 'lr: 60%')
       .replace('currents: 10%', 'currents: ten');
     expect(lines(bad)).toEqual([
-      'd.yaml:4:7 name: expected a name of 1 to 80 characters from letters, digits, space, "_", "." and "-", got "kiosk\\u000aaux": contains a line break',
-      'd.yaml:6:13 topology.inverter: expected "half-bridge" or "full-bridge", got "halfbridge": did you mean "half-bridge"?',
-      'd.yaml:10:7 tank.cr: expected a capacitance > 0 F such as "42 nF", got "42 uH": has the unit of inductance (H), not F',
-      'd.yaml:16:10 switches.rdsOn: expected a resistance > 0 ohm such as "120 mohm", got "22M": is ambiguous: a bare "M" is milli in SPICE but mega in SI; write "22m" for milli or "22meg" for mega',
-      'd.yaml:17:3 switches.rdson: unknown key "rdson"; did you mean "rdsOn"?',
-      'd.yaml:24:8 output.esr: expected a resistance >= 0 ohm such as "20 mohm", got ".inf"',
-      'd.yaml:26:16 operating.vin[1]: expected a voltage > 0 V such as "390 V", got "-390 V"',
-      'd.yaml:26:24 operating.vin[2]: expected a voltage > 0 V such as "390 V", got "NaN"',
-      'd.yaml:31:7 tolerances.lr: expected a fraction >= 0 and < 50% such as "5%", got "60%": must be below 50%',
-      'd.yaml:38:13 compare.currents: expected a fraction > 0 and <= 100% such as "10%", got "ten"',
+      'd.yaml:4:7: name: expected a name of 1 to 80 characters from letters, digits, space, "_", "." and "-", got "kiosk\\u000aaux": contains a line break',
+      'd.yaml:6:13: topology.inverter: expected "half-bridge" or "full-bridge", got "halfbridge": did you mean "half-bridge"?',
+      'd.yaml:10:7: tank.cr: expected a capacitance > 0 F such as "42 nF", got "42 uH": has the unit of inductance (H), not F',
+      'd.yaml:16:10: switches.rdsOn: expected a resistance > 0 ohm such as "120 mohm", got "22M": is ambiguous: a bare "M" is milli in SPICE but mega in SI; write "22m" for milli or "22meg" for mega',
+      'd.yaml:17:3: switches.rdson: unknown key "rdson"; did you mean "rdsOn"?',
+      'd.yaml:24:8: output.esr: expected a resistance >= 0 ohm such as "20 mohm", got ".inf"',
+      'd.yaml:26:16: operating.vin[1]: expected a voltage > 0 V such as "390 V", got "-390 V"',
+      'd.yaml:26:24: operating.vin[2]: expected a voltage > 0 V such as "390 V", got "NaN"',
+      'd.yaml:31:7: tolerances.lr: expected a fraction >= 0 and < 50% such as "5%", got "60%": must be below 50%',
+      'd.yaml:38:13: compare.currents: expected a fraction > 0 and <= 100% such as "10%", got "ten"',
     ]);
   });
 
   it('reports missing sections and keys at the parent, and unknown top-level keys', () => {
     const out = lines('name: x\ntank:\n  lr: 1 uH\nswitchs: {}\n');
-    expect(out).toContain('d.yaml:2:1 tank.cr: missing required key "cr"');
-    expect(out).toContain('d.yaml:4:1 switchs: unknown key "switchs"; did you mean "switches"?');
-    expect(out).toContain('d.yaml:1:1 topology: missing required section "topology"');
-    expect(out).toContain('d.yaml:1:1 operating: missing required section "operating"');
+    expect(out).toContain('d.yaml:2:1: tank.cr: missing required key "cr"');
+    expect(out).toContain('d.yaml:4:1: switchs: unknown key "switchs"; did you mean "switches"?');
+    expect(out).toContain('d.yaml:1:1: topology: missing required section "topology"');
+    expect(out).toContain('d.yaml:1:1: operating: missing required section "operating"');
   });
 
   it('reports wrong YAML types without crashing', () => {
     const out = lines(demo.replace('lr: 60 uH', 'lr: [60 uH]').replace('  turnsRatio: 8', '  turnsRatio: 8\n  integrated: "yes"').replace(/^tolerances:[\s\S]*?(?=compare:)/m, 'tolerances: 5%\n'));
-    expect(out).toContain('d.yaml:9:7 tank.lr: expected an inductance > 0 H such as "60 uH", got a list');
-    expect(out).toContain('d.yaml:13:15 tank.integrated: expected true or false, got "yes"');
-    expect(out).toContain('d.yaml:30:13 tolerances: expected a mapping with keys lr, cr, lm, corners, got "5%"');
-    expect(lines('- a\n- b\n')).toEqual(['d.yaml:1:1 expected a mapping of design sections, got a list']);
-    expect(lines('')).toEqual(['d.yaml:1:1 the design file is empty']);
-    expect(lines('just text')).toEqual(['d.yaml:1:1 expected a mapping of design sections, got "just text"']);
+    expect(out).toContain('d.yaml:9:7: tank.lr: expected an inductance > 0 H such as "60 uH", got a list');
+    expect(out).toContain('d.yaml:13:15: tank.integrated: expected true or false, got "yes"');
+    expect(out).toContain('d.yaml:30:13: tolerances: expected a mapping with keys lr, cr, lm, corners, got "5%"');
+    expect(lines('- a\n- b\n')).toEqual(['d.yaml:1:1: expected a mapping of design sections, got a list']);
+    expect(lines('')).toEqual(['d.yaml:1:1: the design file is empty']);
+    expect(lines('just text')).toEqual(['d.yaml:1:1: expected a mapping of design sections, got "just text"']);
   });
 
   it('rejects duplicate keys with their path', () => {
     const out = lines(demo.replace('  lm: 300 uH', '  lm: 300 uH\n  lm: 310 uH'));
-    expect(out).toEqual(['d.yaml:12:3 tank.lm: duplicate key "lm"; a key may appear only once']);
+    expect(out).toEqual(['d.yaml:12:3: tank.lm: duplicate key "lm"; a key may appear only once']);
   });
 
   it('reports YAML syntax errors with position and stops there', () => {
@@ -99,7 +99,7 @@ describe('problem reports', () => {
     expect(out.length).toBeGreaterThan(0);
     expect(out.every((p) => p.code === 'yaml' && p.line > 0)).toBe(true);
     expect(problems('tank:\n\tlr: 1\n').map((p) => [p.code, p.line, p.column])).toEqual([['yaml', 2, 1]]);
-    expect(lines('name: a\n---\nname: b\n')).toEqual(['d.yaml:2:1 a design file holds one YAML document; remove the second "---" and what follows or merge it']);
+    expect(lines('name: a\n---\nname: b\n')).toEqual(['d.yaml:2:1: a design file holds one YAML document; remove the second "---" and what follows or merge it']);
   });
 });
 
@@ -134,7 +134,7 @@ describe('hostile input', () => {
   it('rejects oversize text, very long strings, huge and tiny numbers with clear problems', () => {
     expect(problems('#'.repeat(1_000_001)).map((p) => p.code)).toEqual(['too-large']);
     const out = lines(demo.replace('name: kiosk-aux-240w', `name: ${'n'.repeat(5000)}`).replace('lr: 60 uH', `lr: ${'9'.repeat(400)}`).replace('cr: 42 nF', 'cr: 1e-400'));
-    expect(out[0]).toMatch(/^d\.yaml:4:7 name: expected a name of 1 to 80 characters .*, got "n{40}\.\.\.": is 5000 characters long$/);
+    expect(out[0]).toMatch(/^d\.yaml:4:7: name: expected a name of 1 to 80 characters .*, got "n{40}\.\.\.": is 5000 characters long$/);
     expect(out[1]).toMatch(/tank\.lr: .*is too long \(400 characters\)/);
     expect(out[2]).toMatch(/tank\.cr: .*got "1e-400": is too small to represent/);
   });

@@ -4,11 +4,12 @@ import { didYouMean, formatProblem, quote, type Problem } from './problem.js';
 const p = (over: Partial<Problem>): Problem => ({ code: 'value', path: 'tank.lm', line: 9, column: 7, expected: '', received: '', message: 'm', ...over });
 
 describe('formatProblem', () => {
-  it('renders file:line:column path: message, and leaves out what is unknown', () => {
-    expect(formatProblem(p({}), 'demo.yaml')).toBe('demo.yaml:9:7 tank.lm: m');
-    expect(formatProblem(p({ line: 0, column: 0 }), 'demo.yaml')).toBe('demo.yaml tank.lm: m');
-    expect(formatProblem(p({ path: '' }), 'demo.yaml')).toBe('demo.yaml:9:7 m');
-    expect(formatProblem(p({ file: 'models/d.lib', line: 3, column: 1 }), 'demo.yaml')).toBe('models/d.lib:3:1 tank.lm: m');
+  it('renders file:line:column: path: message, and leaves out what is unknown', () => {
+    expect(formatProblem(p({}), 'demo.yaml')).toBe('demo.yaml:9:7: tank.lm: m');
+    expect(formatProblem(p({ line: 0, column: 0 }), 'demo.yaml')).toBe('demo.yaml: tank.lm: m');
+    expect(formatProblem(p({ line: 0, column: 0, path: '' }), 'demo.yaml')).toBe('demo.yaml: m');
+    expect(formatProblem(p({ path: '' }), 'demo.yaml')).toBe('demo.yaml:9:7: m');
+    expect(formatProblem(p({ file: 'models/d.lib', line: 3, column: 1 }), 'demo.yaml')).toBe('models/d.lib:3:1: tank.lm: m');
   });
 });
 

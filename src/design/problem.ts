@@ -34,13 +34,15 @@ export interface Problem {
 }
 
 /**
- * Render a problem as `file:line:column path: message`, e.g.
- * `demo.yaml:9:7 tank.lm: expected an inductance > 0 H such as "310 uH", got "abc"`.
+ * Render a problem as `file:line:column: path: message`, e.g.
+ * `demo.yaml:9:7: tank.lm: expected an inductance > 0 H such as "310 uH", got "abc"` (the form
+ * compilers use, so editors and CI problem matchers pick it up); without a position
+ * `file: path: message`, and `file: message` for the whole file.
  * `file` is the design file; a problem that belongs to a model file names that file instead.
  */
 export function formatProblem(p: Problem, file: string): string {
   const where = `${p.file ?? file}${p.line > 0 ? `:${p.line}:${p.column}` : ''}`;
-  return `${where} ${p.path === '' ? '' : `${p.path}: `}${p.message}`;
+  return `${where}: ${p.path === '' ? '' : `${p.path}: `}${p.message}`;
 }
 
 /** Quote user text for a message: at most `max` characters, control and non-ASCII-space characters escaped. */

@@ -40,8 +40,8 @@ describe('tankcheck fha and init', () => {
     const json = join(dir, 'bad.json');
     const r = await runCli(['fha', bad, '--json', json]);
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/bad\.yaml:\d+:\d+ tank\.lm/);
-    expect(r.stderr).toMatch(/bad\.yaml:\d+:\d+ tank\.cr/);
+    expect(r.stderr).toMatch(/bad\.yaml:\d+:\d+: tank\.lm/);
+    expect(r.stderr).toMatch(/bad\.yaml:\d+:\d+: tank\.cr/);
     expect(existsSync(json)).toBe(false);
   });
 

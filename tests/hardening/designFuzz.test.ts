@@ -39,7 +39,7 @@ describe('structured mutations of a valid design', () => {
       const { text, expected } = applyMutations(ms);
       const { stderr } = await expectRefused(file, text, t, { alsoRun: cases++ % 4 === 0 });
       for (const e of expected) {
-        const re = new RegExp(`^${escapeRe(file)}:${e.line}:\\d+ ${escapeRe(e.path)}(\\[\\d+\\])?: `, 'm');
+        const re = new RegExp(`^${escapeRe(file)}:${e.line}:\\d+: ${escapeRe(e.path)}(\\[\\d+\\])?: `, 'm');
         expect(stderr, `${e.label}\n${text}`).toMatch(re);
       }
     }), params(1000, 20240611));
@@ -67,7 +67,7 @@ describe('byte- and text-level attacks', () => {
       const { stderr } = await expectRefused(file, data, t, { alsoRun: false });
       const hex = bytes[0].toString(16).toUpperCase();
       // column 8: after "name2: " (1-based, in bytes)
-      expect(stderr).toMatch(new RegExp(`^${escapeRe(file)}:${line}:8 byte 0x${hex} is not valid UTF-8`, 'm'));
+      expect(stderr).toMatch(new RegExp(`^${escapeRe(file)}:${line}:8: byte 0x${hex} is not valid UTF-8`, 'm'));
     }), params(300, 7));
   });
 
@@ -114,9 +114,9 @@ describe('byte- and text-level attacks', () => {
     expect(big.stderr).toMatch(/larger than 1000000 bytes/);
     const lines = valid.split('\n').length;
     const longKey = await expectRefused(file, `${valid}${'k'.repeat(900_000)}: 1\n`, t);
-    expect(longKey.stderr).toMatch(new RegExp(`^${escapeRe(file)}:${lines}:1 `, 'm'));
+    expect(longKey.stderr).toMatch(new RegExp(`^${escapeRe(file)}:${lines}:1: `, 'm'));
     const longName = await expectRefused(file, valid.replace(/^name: .*$/m, `name: "${'n'.repeat(900_000)}"`), t);
-    expect(longName.stderr).toMatch(new RegExp(`^${escapeRe(file)}:1:7 name: expected a name .*, got "n{40}\\.\\.\\."`, 'm'));
+    expect(longName.stderr).toMatch(new RegExp(`^${escapeRe(file)}:1:7: name: expected a name .*, got "n{40}\\.\\.\\."`, 'm'));
   });
 });
 

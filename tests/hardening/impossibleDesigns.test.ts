@@ -33,7 +33,7 @@ describe('physically impossible designs', () => {
     const file = designFile('lm-lt-lr.yaml', { 'tank.lm': '40 uH' });
     const r = await runCli(['fha', file, '--json', join(dir, 'x.json')]);
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(new RegExp(`${file}:\\d+:\\d+ tank\\.lm: physically implausible: Lm \\(40 uH\\) must exceed Lr \\(60 uH\\).*Ln = Lm/Lr = 0\\.667`));
+    expect(r.stderr).toMatch(new RegExp(`${file}:\\d+:\\d+: tank\\.lm: physically implausible: Lm \\(40 uH\\) must exceed Lr \\(60 uH\\).*Ln = Lm/Lr = 0\\.667`));
     expect(existsSync(join(dir, 'x.json'))).toBe(false);
   });
 

@@ -1,6 +1,6 @@
 /**
  * Runs one design file through `tankcheck fha` and `tankcheck run` in-process and checks the
- * contract for a file that must be refused: exit code 2, every problem as `file:line:column path:
+ * contract for a file that must be refused: exit code 2, every problem as `file:line:column: path:
  * message`, the "nothing was written" trailer, no output file or folder created, bounded time and
  * bounded message size.
  */
@@ -53,9 +53,9 @@ export async function expectRefused(file: string, content: string | Uint8Array, 
   return { stderr: fha.stderr, ms };
 }
 
-/** Lines of stderr that carry a position: `file:line:column ...` with line >= 1. */
+/** Lines of stderr that carry a position: `file:line:column: ...` with line >= 1. */
 export function positioned(stderr: string, file: string): string[] {
-  return stderr.split('\n').filter((l) => l.startsWith(`${file}:`) && /^:[1-9]\d*:\d+ /.test(l.slice(file.length)));
+  return stderr.split('\n').filter((l) => l.startsWith(`${file}:`) && /^:[1-9]\d*:\d+: /.test(l.slice(file.length)));
 }
 
 export function cleanTargets(t: Targets): void {
