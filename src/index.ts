@@ -10,6 +10,7 @@ export { predictCorner, tankConstants, acResistance, bridgeFactor, rectifierDrop
 export { buildDeck, savedVectors, STEP_PROFILES, type Deck, type DeckRequest } from './netlist/deck.js';
 export { fhaSeed } from './netlist/fhaState.js';
 export { toWaveforms, finalState } from './netlist/waveforms.js';
+export { addRshunt, switchIntegrationMethod, integrationMethod, insertBeforeEnd, zeroStart } from './netlist/rewrite.js';
 export type { DeckSeed } from './netlist/types.js';
 export * from './engine/index.js';
 export { measure } from './measure/index.js';

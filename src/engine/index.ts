@@ -10,15 +10,7 @@ export { createWasmEngine, type WasmEngine, type WasmEngineOptions } from './was
 export { parseRaw, normaliseVectorName, RawFormatError, type RawPlot, type RawVariable } from './rawfile.js';
 export { classifyRun, parseDiagnostics, findTimestepFailure, type RunOutcome, type Classification } from './classify.js';
 export { mapPool, defaultJobs, maxJobs, type HostInfo } from './pool.js';
-export {
-  runWithRetries,
-  defaultRungs,
-  addRshunt,
-  switchIntegrationMethod,
-  integrationMethod,
-  insertBeforeEnd,
-  type RetryRung,
-} from './retry.js';
+export { runWithRetries, RETRY_LADDER, ZERO_START_LABEL, type RetryRung } from './retry.js';
 
 /** Engine names as the CLI spells them. */
 export type EngineName = 'wasm' | 'ngspice';

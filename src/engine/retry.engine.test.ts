@@ -1,7 +1,7 @@
 // The retry ladder on a real convergence failure, with both engines. Slow-tagged by the file name.
 import { afterAll, describe, expect, it } from 'vitest';
 import { createNgspiceEngine } from './native.js';
-import { defaultRungs, runWithRetries } from './retry.js';
+import { RETRY_LADDER, runWithRetries } from './retry.js';
 import { createWasmEngine } from './wasm.js';
 
 // A half-bridge LC tank seeded with Cr = 200 V and Vout = 49 V, gear: the rectifier diode fails at once
@@ -33,18 +33,28 @@ const wasm = createWasmEngine();
 afterAll(() => wasm.close());
 
 describe('runWithRetries', () => {
-  it('native ngspice 39: fails as configured, succeeds on the rshunt rung', async () => {
+  it('native ngspice 39: fails as configured, succeeds on the rshunt rung (RETRY_LADDER, the one ladder the runs use)', async () => {
     const r = await runWithRetries(createNgspiceEngine(), { id: 's', deck: SEEDED, timeoutMs: 20_000 });
-    expect(r.attempts.map((a) => [a.label, a.outcome])).toEqual([['as configured', 'convergence'], ['rshunt=1e9', 'ok']]);
+    expect(r.attempts.map((a) => [a.label, a.outcome])).toEqual([['as configured', 'convergence'], ['rshunt=1e7', 'ok']]);
     expect(r.ok).toBe(true);
     expect(r.vectors.time[r.vectors.time.length - 1]).toBeCloseTo(20e-6, 12);
   });
 
-  it('wasm ngspice-45.2: every rung is tried and the last failure is returned (rshunt has no effect there)', async () => {
+  it('wasm ngspice-45.2: rshunt has no effect there and neither has the other method; the start from rest runs', async () => {
     const r = await runWithRetries(wasm, { id: 's', deck: SEEDED, timeoutMs: 20_000 });
-    expect(r.attempts.map((a) => a.label)).toEqual(['as configured', ...defaultRungs.map((g) => g.label)]);
+    expect(r.attempts.map((a) => [a.label, a.outcome])).toEqual([
+      ['as configured', 'convergence'], ['rshunt=1e7', 'convergence'], ['other integration method', 'convergence'], ['zero-state start', 'ok'],
+    ]);
+    expect(r.attempts.map((a) => a.label)).toEqual(['as configured', ...RETRY_LADDER.map((g) => g.label)]);
+    expect(r.ok).toBe(true);
+    expect(r.vectors.time[r.vectors.time.length - 1]).toBeCloseTo(20e-6, 12);
+  });
+
+  it('a ladder that ends without success returns the last convergence failure naming every rung', async () => {
+    const r = await runWithRetries(wasm, { id: 's', deck: SEEDED, timeoutMs: 20_000 }, RETRY_LADDER.slice(0, 2));
     expect(r.attempts.every((a) => a.outcome === 'convergence')).toBe(true);
     expect(r.failure?.kind).toBe('convergence');
+    expect(r.failure?.message).toMatch(/after 3 attempts: as configured, rshunt=1e7, other integration method\)$/);
   });
 
   it('does not retry input failures', async () => {

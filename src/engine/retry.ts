@@ -1,8 +1,10 @@
 /**
- * Retry ladder for convergence failures, and the deck rewrites used as its rungs. The rewrites are pure
- * text functions on our own deck form (`.options` lines, `.end` last); runWithRetries does the runs.
+ * The retry ladder for convergence failures (they fail within milliseconds, so retrying is cheap):
+ * its one policy, RETRY_LADDER, and runWithRetries, which does the runs. The deck rewrites each rung
+ * applies live in src/netlist/rewrite.ts.
  */
 import type { Attempt, SimEngine, SimJob, SimResult } from './types.js';
+import { addRshunt, switchIntegrationMethod, zeroStart } from '../netlist/rewrite.js';
 
 /** One rung: a label for reports and a rewrite of the deck as configured. */
 export interface RetryRung {
@@ -10,89 +12,18 @@ export interface RetryRung {
   transform(deck: string): string;
 }
 
-const OPTIONS_LINE = /^\s*\.opt(?:ion|ions)?\b/i;
-const END_LINE = /^\s*\.end\s*$/i;
-const SPICE_SCALE: Record<string, number> = { f: 1e-15, p: 1e-12, n: 1e-9, u: 1e-6, m: 1e-3, k: 1e3, meg: 1e6, g: 1e9, t: 1e12 };
-
-/** Parses a SPICE number such as '1e-4', '100u', '2.5meg' (NaN if it is not one). */
-export function parseSpiceNumber(text: string): number {
-  const m = /^([+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?)(meg|[fpnumkgt])?[a-z]*$/i.exec(text.trim());
-  if (!m) return NaN;
-  return Number(m[1]) * (m[2] ? SPICE_SCALE[m[2].toLowerCase()] : 1);
-}
-
-/** Indices of `.options` lines and their `+` continuation lines. */
-function optionLineIndices(lines: string[]): number[] {
-  const out: number[] = [];
-  let inOptions = false;
-  lines.forEach((line, i) => {
-    if (OPTIONS_LINE.test(line)) inOptions = true;
-    else if (!(inOptions && /^\s*\+/.test(line))) inOptions = false;
-    if (inOptions) out.push(i);
-  });
-  return out;
-}
-
-/** Inserts `line` before the last `.end` line (appends it when there is none). */
-export function insertBeforeEnd(deck: string, line: string): string {
-  const lines = deck.split('\n');
-  let end = -1;
-  lines.forEach((l, i) => {
-    if (END_LINE.test(l)) end = i;
-  });
-  if (end < 0) {
-    const trailing = lines.length > 0 && lines[lines.length - 1] === '' ? lines.length - 1 : lines.length;
-    lines.splice(trailing, 0, line);
-  } else lines.splice(end, 0, line);
-  return lines.join('\n');
-}
-
-/** Adds `.options rshunt=<ohms>` before `.end`: a resistor from every node to ground. @default 1e9 ohm */
-export function addRshunt(deck: string, ohms = 1e9): string {
-  return insertBeforeEnd(deck, `.options rshunt=${ohms}`);
-}
-
-/** The integration method the deck asks for: the last `method=` in `.options`, else ngspice's default 'trap'. */
-export function integrationMethod(deck: string): 'trap' | 'gear' {
-  const lines = deck.split('\n');
-  let method: 'trap' | 'gear' = 'trap';
-  for (const i of optionLineIndices(lines)) {
-    for (const m of lines[i].matchAll(/\bmethod\s*=\s*([a-z]+)/gi)) method = m[1].toLowerCase() === 'gear' ? 'gear' : 'trap';
-  }
-  return method;
-}
+/** Label of the last rung; a run that needed it starts a new trajectory (earlier settling history no longer applies). */
+export const ZERO_START_LABEL = 'zero-state start';
 
 /**
- * Switches gear <-> trap by rewriting every `method=` in `.options` lines (adding one if absent). When the
- * result is trap, every `reltol` above 1e-4 becomes 1e-4 (added if absent): trap at the default 1e-3 rings.
+ * The ladder after 'as configured', in order: a stronger shunt conductance (system ngspice only: the
+ * wasm build ignores the option, so the deck's own 1 Gohm node shunts stay the portable path), the
+ * other integration method, then a start from rest. Each rung rewrites the original deck.
  */
-export function switchIntegrationMethod(deck: string): string {
-  const to = integrationMethod(deck) === 'gear' ? 'trap' : 'gear';
-  const lines = deck.split('\n');
-  const idx = optionLineIndices(lines);
-  let hasMethod = false;
-  let hasReltol = false;
-  for (const i of idx) {
-    lines[i] = lines[i].replace(/\bmethod\s*=\s*[a-z]+/gi, () => {
-      hasMethod = true;
-      return `method=${to}`;
-    });
-    if (to === 'trap') {
-      lines[i] = lines[i].replace(/\breltol\s*=\s*(\S+)/gi, (all, value: string) => {
-        hasReltol = true;
-        return parseSpiceNumber(value) <= 1e-4 ? all : 'reltol=1e-4';
-      });
-    }
-  }
-  const extra = [hasMethod ? '' : `method=${to}`, to === 'trap' && !hasReltol ? 'reltol=1e-4' : ''].filter(Boolean);
-  const out = lines.join('\n');
-  return extra.length > 0 ? insertBeforeEnd(out, `.options ${extra.join(' ')}`) : out;
-}
-
-/** The ladder after 'as configured': add rshunt, then switch the integration method. */
-export const defaultRungs: readonly RetryRung[] = [
-  { label: 'rshunt=1e9', transform: (deck) => addRshunt(deck) },
-  { label: 'switch method gear<->trap', transform: switchIntegrationMethod },
+export const RETRY_LADDER: readonly RetryRung[] = [
+  { label: 'rshunt=1e7', transform: (d) => addRshunt(d, 1e7) },
+  { label: 'other integration method', transform: switchIntegrationMethod },
+  { label: ZERO_START_LABEL, transform: zeroStart },
 ];
 
 function attemptOf(label: string, r: SimResult): Attempt {
@@ -105,11 +36,12 @@ function attemptOf(label: string, r: SimResult): Attempt {
  * Runs the job as configured; after a convergence failure tries each rung in order (each rewrites the
  * original deck) until one run does not fail on convergence. Returns the last result with every try
  * listed in `attempts`; a convergence failure that survived the rungs says which were tried.
+ * @param rungs default RETRY_LADDER (other ladders are for tests)
  */
 export async function runWithRetries(
   engine: SimEngine,
   job: SimJob,
-  rungs: readonly RetryRung[] = defaultRungs,
+  rungs: readonly RetryRung[] = RETRY_LADDER,
 ): Promise<SimResult & { attempts: Attempt[] }> {
   let result = await engine.run(job);
   const attempts = [attemptOf('as configured', result)];

@@ -4,23 +4,10 @@ import type { SimEngine, SimFailure, Attempt } from '../engine/types.js';
 import type { DeckSeed, StepProfile } from '../netlist/types.js';
 import type { SimMetrics, Waveforms } from '../measure/types.js';
 import { buildDeck, STEP_PROFILES } from '../netlist/deck.js';
-import { runWithRetries, addRshunt, switchIntegrationMethod, type RetryRung } from '../engine/retry.js';
+import { runWithRetries, ZERO_START_LABEL } from '../engine/retry.js';
 import { finalState, toWaveforms } from '../netlist/waveforms.js';
 import { makeSpan, measure, spanAverage } from '../measure/index.js';
 import { predictCorner } from '../fha/predict.js';
-
-const ZERO_START_LABEL = 'zero-state start';
-
-/**
- * Retry ladder for convergence failures (they fail within milliseconds, so retrying is cheap):
- * a stronger shunt conductance (system ngspice only: the wasm build ignores the option), the other
- * integration method, then a zero-state start.
- */
-export const RETRY_RUNGS: readonly RetryRung[] = [
-  { label: 'rshunt=1e7', transform: (d) => addRshunt(d, 1e7) },
-  { label: 'other integration method', transform: switchIntegrationMethod },
-  { label: ZERO_START_LABEL, transform: (d) => d.replace(/ ic=[^ \n]+/g, ' ic=0') },
-];
 
 /** Settling and measurement window: whole switching cycles. */
 export const WINDOW_CYCLES = 6;
@@ -130,7 +117,7 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
     if (runs > 0 && cycles + windows * K > opts.maxCycles) break;
     const deck = buildDeck({ design, corner, fs, seed: state, cycles: windows * K, saveCycles: windows * K, profile });
     const timeoutMs = opts.timeoutMs ?? Math.max(30_000, windows * K * 100 * (profile.stepsPerPeriod / 350));
-    const res = await runWithRetries(engine, { id: corner.id, deck: deck.text, timeoutMs, signal: opts.signal }, RETRY_RUNGS);
+    const res = await runWithRetries(engine, { id: corner.id, deck: deck.text, timeoutMs, signal: opts.signal });
     runs++;
     cycles += windows * K;
     attempts.push(...res.attempts);

@@ -84,7 +84,7 @@ describe('no convergence on any rung of the retry ladder', () => {
     expect(f.kind).toBe('convergence');
     expect(f.message).toMatch(/Timestep too small; time = 1\.23e-06/);
     expect(f.message).toMatch(/after 4 attempts: as configured, rshunt=1e7, other integration method, zero-state start/);
-    // the ladder really rewrote the deck on each rung (src/run/steady.ts RETRY_RUNGS)
+    // the ladder really rewrote the deck on each rung (src/engine/retry.ts RETRY_LADDER)
     const decks = readdirSync(log).sort().map((n) => readFileSync(join(log, n), 'latin1'));
     expect(decks).toHaveLength(4);
     expect(decks[1]).toMatch(/^\.options rshunt=10000000$/m);

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { addRshunt, insertBeforeEnd, integrationMethod, parseSpiceNumber, switchIntegrationMethod } from './retry.js';
+import { addRshunt, insertBeforeEnd, integrationMethod, parseSpiceNumber, switchIntegrationMethod, zeroStart } from './rewrite.js';
 
 const deck = (options: string) => `nonce\nR1 a 0 1k\n${options}\n.tran 1n 1u\n.end\n`;
 
-describe('deck rewrites for the retry ladder', () => {
+describe('deck rewrites (the rungs of the retry ladder)', () => {
   it('inserts lines before the final .end', () => {
     expect(addRshunt(deck('.options method=gear'))).toBe('nonce\nR1 a 0 1k\n.options method=gear\n.tran 1n 1u\n.options rshunt=1000000000\n.end\n');
     expect(insertBeforeEnd('t\nR1 a 0 1\n', 'X')).toBe('t\nR1 a 0 1\nX\n');
@@ -30,5 +30,10 @@ describe('deck rewrites for the retry ladder', () => {
     expect(parseSpiceNumber('1M')).toBe(1e-3);
     expect(parseSpiceNumber('2.5meg')).toBe(2.5e6);
     expect(parseSpiceNumber('abc')).toBeNaN();
+  });
+
+  it('zero start sets every initial condition to 0 and leaves everything else alone', () => {
+    const d = 'n\nLr t1 t2 {lr} ic=-1.51786\nCr t2 t3 {cr} IC=17.2356\nCo co 0 100u ic={vo0}\nLs1 s1 0 {ls} ic=0\nVg1 g1 0 pulse(0 1 {g1d} {ge} {ge} {gw} {period})\n.tran {tstep} {tstop} {tstart} {tmax} uic\n.end\n';
+    expect(zeroStart(d)).toBe(d.replace('ic=-1.51786', 'ic=0').replace('IC=17.2356', 'IC=0').replace('ic={vo0}', 'ic=0'));
   });
 });
