@@ -7,12 +7,10 @@ export type Inverter = 'half-bridge' | 'full-bridge';
 export type Rectifier = 'center-tapped' | 'full-bridge';
 export type Accuracy = 'fast' | 'normal' | 'fine';
 
-/** One load entry as written: a share of rated power, or an absolute resistance/current/power. */
-export type LoadSpec =
-  | { kind: 'percent'; value: number } // ratio of ratedPower (50 % = 0.5)
-  | { kind: 'ohm'; value: number }
-  | { kind: 'ampere'; value: number }
-  | { kind: 'watt'; value: number };
+import type { LoadSpec } from '../units/load.js';
+
+/** One load entry as written (defined in units/, where it is parsed; re-exported here). */
+export type { LoadSpec } from '../units/load.js';
 
 /** A corner listed by hand in `operating.corners`; absent tank values take the nominal ones. */
 export interface ExplicitCorner {

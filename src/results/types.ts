@@ -5,7 +5,14 @@ import type { ComparisonRow, Divergence } from '../compare/types.js';
 
 export type { ComparisonRow, Divergence } from '../compare/types.js';
 
-export type CornerStatus = 'predicted' | 'unreachable' | 'ok' | 'diverged' | 'failed' | 'not-settled';
+export type CornerStatus = 'predicted' | 'unreachable' | 'ok' | 'diverged' | 'failed' | 'not-settled' | 'outside-limits';
+
+/** Why a corner failed: the step that failed (`kind`), a one-line reason and optional detail. */
+export interface CornerFailure {
+  kind: string;
+  message: string;
+  detail?: string;
+}
 
 /** Simulation outcome of one corner: the measured metrics plus how they were obtained. */
 export interface SimSummary extends SimMetrics {
@@ -30,7 +37,7 @@ export interface CornerResult {
   comparison: ComparisonRow[];
   divergences: Divergence[];
   status: CornerStatus;
-  failure?: { kind: string; message: string; detail?: string };
+  failure?: CornerFailure;
 }
 
 /** Downsampled waveforms of one corner's measurement window, kept for the report. */

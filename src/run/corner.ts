@@ -4,6 +4,7 @@ import type { FhaResult } from '../fha/types.js';
 import type { SimEngine } from '../engine/types.js';
 import type { Waveforms } from '../measure/types.js';
 import type { CornerResult, SimSummary, WaveformExcerpt } from '../results/types.js';
+import { failed, simulated } from '../results/build.js';
 import { compareCorner } from '../compare/compare.js';
 import { simulateSteady, WINDOW_CYCLES } from './steady.js';
 import { regulate } from './regulate.js';
@@ -24,10 +25,7 @@ export interface CornerOutcome {
   waveform?: WaveformExcerpt;
 }
 
-export function cornerInputs(c: Corner): CornerResult['inputs'] {
-  const { id: _id, ...inputs } = c;
-  return inputs;
-}
+export { cornerInputs } from '../results/build.js';
 
 /**
  * Simulate one corner to a verified steady state (regulated: at the frequency that meets
@@ -39,7 +37,6 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
   const regulated = corner.fs === null;
   const steadyOpts = { tolerance: design.simulation.settleTolerance, maxCycles: design.simulation.maxCycles, signal: opts.signal, timeoutMs: opts.timeoutMs };
   const start = opts.start ?? startPoint(design, corner, fha, opts.seed);
-  const base = { id: corner.id, inputs: cornerInputs(corner), fha };
   let steady;
   let simulations = 1;
   let cycles;
@@ -54,17 +51,12 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
     ({ cycles, runs } = steady);
   }
   if (!steady.ok || !steady.metrics) {
-    const f = steady.failure ?? { kind: 'engine', message: 'no result' };
-    return { result: { ...base, sim: null, comparison: [], divergences: [], status: 'failed',
-      failure: { kind: f.kind, message: f.message, ...(f.detail ? { detail: f.detail } : {}) } } };
+    return { result: failed(corner, fha, steady.failure ?? { kind: 'engine', message: 'no result' }) };
   }
   const sim: SimSummary = { ...steady.metrics, cycles, runs, simulations, settled: steady.settled, settleError: steady.settleError, fromCache: false };
   const cmp = compareCorner(design, fha, steady.metrics, regulated);
-  const status: CornerResult['status'] = !steady.settled ? 'not-settled' : cmp.divergences.length ? 'diverged' : 'ok';
-  const result: CornerResult = { ...base, sim, comparison: cmp.rows, divergences: cmp.divergences, status };
-  if (!regulationMet) {
-    result.status = 'failed';
-    result.failure = { kind: 'regulation', message: `no switching frequency met ${design.output.voltage} V within 0.5 % in ${simulations} simulations (closest ${steady.metrics.vout.toPrecision(5)} V at ${(steady.fs / 1e3).toPrecision(5)} kHz)` };
-  }
+  const measured = { sim, comparison: cmp.rows, divergences: cmp.divergences };
+  const result: CornerResult = regulationMet ? simulated(corner, fha, measured)
+    : failed(corner, fha, { kind: 'regulation', message: `no switching frequency met ${design.output.voltage} V within 0.5 % in ${simulations} simulations (closest ${steady.metrics.vout.toPrecision(5)} V at ${(steady.fs / 1e3).toPrecision(5)} kHz)` }, measured);
   return { result, waveform: excerpt(corner.id, steady.waveforms as Waveforms, steady.windowStart, WINDOW_CYCLES) };
 }

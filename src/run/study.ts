@@ -5,11 +5,10 @@ import type { CornerResult, Results, WaveformExcerpt } from '../results/types.js
 import { expandCorners, filterCorners } from '../corners/expand.js';
 import { predictCorner } from '../fha/predict.js';
 import { compareCorner } from '../compare/compare.js';
-import { summarize } from '../results/summary.js';
-import { cornerInputs, simulateCorner, type CornerOutcome } from './corner.js';
+import { envelope, failed as failedCorner, predicted, simulated } from '../results/build.js';
+import { simulateCorner, type CornerOutcome } from './corner.js';
 import { startPoint, type StartPoint } from './seed.js';
 import { mapPool } from '../engine/pool.js';
-import { TOOL_VERSION } from '../version.js';
 
 export interface StudyProgress {
   done: number;
@@ -45,12 +44,8 @@ export interface StudyOutput {
 
 /** FHA-only results (no engine): every corner predicted. */
 export function predictStudy(design: Design, only?: string): Results {
-  const corners = filterCorners(expandCorners(design), only).map((c): CornerResult => {
-    const fha = predictCorner(design, c);
-    return { id: c.id, inputs: cornerInputs(c), fha, sim: null, comparison: [], divergences: [], status: fha.fs === null ? 'unreachable' : 'predicted' };
-  });
-  return { schema: 'tankcheck/results@1', tool: { name: 'tankcheck', version: TOOL_VERSION },
-    design: { name: design.name, file: design.file ?? null }, engine: null, corners, summary: summarize(corners, 0) };
+  const corners = filterCorners(expandCorners(design), only).map((c) => predicted(c, predictCorner(design, c)));
+  return envelope(design, corners, { engine: null });
 }
 
 /**
@@ -76,8 +71,7 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
       out = refreshComparison(design, corner, fha, out);
     } else {
       out = await simulateCorner(opts.engine, design, corner, fha, { signal: opts.signal, timeoutMs: opts.timeoutMs, start })
-        .catch((e: unknown): CornerOutcome => ({ result: { id: corner.id, inputs: cornerInputs(corner), fha, sim: null, comparison: [], divergences: [],
-          status: 'failed', failure: { kind: 'measurement', message: e instanceof Error ? e.message : String(e) } } }));
+        .catch((e: unknown): CornerOutcome => ({ result: failedCorner(corner, fha, { kind: 'measurement', message: e instanceof Error ? e.message : String(e) }) }));
       if (opts.signal?.aborted && out.result.status === 'failed') return; // interrupted, not a simulator failure
       if (key && out.result.failure?.kind !== 'timeout') await opts.cache!.set(key, out);
     }
@@ -88,24 +82,14 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
   }, opts.signal).catch((e: unknown) => {
     if (!opts.signal?.aborted) throw e;
   });
-  const results: CornerResult[] = corners.map((c, i) => outcomes[i]?.result ?? predictedOnly(design, c));
+  // a corner never started keeps its FHA prediction
+  const results: CornerResult[] = corners.map((c, i) => outcomes[i]?.result ?? predicted(c, predictCorner(design, c)));
   // not outcomes.some(): the array is sparse, and some() skips the holes of corners never started
   const incomplete = corners.some((_, i) => outcomes[i] === undefined);
   return {
-    results: {
-      // an interrupted study says so first, before anyone reads a table built from it
-      schema: 'tankcheck/results@1', ...(incomplete ? { incomplete: true } : {}), tool: { name: 'tankcheck', version: TOOL_VERSION },
-      design: { name: design.name, file: design.file ?? null },
-      engine: { name: opts.engine.name, version: engineVersion },
-      corners: results, summary: summarize(results, cacheHits),
-    },
+    results: envelope(design, results, { engine: { name: opts.engine.name, version: engineVersion }, cacheHits, incomplete }),
     waveforms: outcomes.flatMap((o) => (o?.waveform ? [o.waveform] : [])),
   };
-}
-
-function predictedOnly(design: Design, c: Corner): CornerResult {
-  const fha = predictCorner(design, c);
-  return { id: c.id, inputs: cornerInputs(c), fha, sim: null, comparison: [], divergences: [], status: 'predicted' };
 }
 
 /** A cached simulation is compared again with the current tolerances (compare: may have changed). */
@@ -113,6 +97,5 @@ function refreshComparison(design: Design, corner: Corner, fha: CornerResult['fh
   const r = out.result;
   if (!r.sim || r.status === 'failed') return { ...out, result: { ...r, fha, sim: r.sim ? { ...r.sim, fromCache: true } : null } };
   const cmp = compareCorner(design, fha, r.sim, corner.fs === null);
-  const status = !r.sim.settled ? 'not-settled' : cmp.divergences.length ? 'diverged' : 'ok';
-  return { ...out, result: { ...r, fha, sim: { ...r.sim, fromCache: true }, comparison: cmp.rows, divergences: cmp.divergences, status } };
+  return { ...out, result: { ...r, ...simulated(corner, fha, { sim: { ...r.sim, fromCache: true }, comparison: cmp.rows, divergences: cmp.divergences }) } };
 }

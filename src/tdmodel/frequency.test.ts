@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { solveFrequency } from './frequency.js';
-import { solveSteadyState } from './steady.js';
+import { solveSteadyState } from './periodic.js';
 import { fhaGain, fnForGain, zeroPhaseFn } from '../fha/gain.js';
 import { params, rel, resonance } from './cases.test-support.js';
 import type { TdParams } from './types.js';

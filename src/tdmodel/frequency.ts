@@ -1,4 +1,4 @@
-import { solveSteadyState } from './steady.js';
+import { solveSteadyState } from './periodic.js';
 import { brent } from './root.js';
 import { checkParams } from './model.js';
 import type { FrequencyResult, SteadyStateResult, TdParams } from './types.js';

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { HalfPeriod } from './halfperiod.js';
 import { normalize } from './model.js';
 import { newStats } from './stats.js';
-import { solveSteadyState } from './steady.js';
+import { solveSteadyState } from './periodic.js';
 import { balance, params, resonance } from './cases.test-support.js';
 
 // Regression cases found while building the solver (states at t = 0 that broke event handling).

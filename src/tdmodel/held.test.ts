@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { solveHeldOutput } from './held.js';
-import { solveSteadyState } from './steady.js';
+import { solveSteadyState } from './periodic.js';
 import { modeLabel } from './result.js';
 import { loadForQ, params, rel, resonance } from './cases.test-support.js';
 

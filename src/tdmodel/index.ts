@@ -23,7 +23,7 @@ export type {
   TdParams, RectMode, Segment, SeedState, PowerBalance, HeldOutputResult, SteadyStateResult, FrequencyResult,
 } from './types.js';
 export { solveHeldOutput, type HeldOptions } from './held.js';
-export { solveSteadyState, fhaVo, type SteadyOptions } from './steady.js';
+export { solveSteadyState, fhaVo, type SteadyOptions } from './periodic.js';
 export { solveFrequency, type FrequencyOptions } from './frequency.js';
 export { tdParamsFromCorner } from './params.js';
 export { modeLabel } from './result.js';

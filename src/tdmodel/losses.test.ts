@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { solveSteadyState } from './steady.js';
+import { solveSteadyState } from './periodic.js';
 import { balance, params, rel, resonance } from './cases.test-support.js';
 import type { TdParams } from './types.js';
 

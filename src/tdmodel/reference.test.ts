@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { solveSteadyState } from './steady.js';
+import { solveSteadyState } from './periodic.js';
 import { loadForQ, params, rel, resonance } from './cases.test-support.js';
 
 // Method reference 5.3: "M_time-domain" column of its own idealized model (ideal switches, zero dead

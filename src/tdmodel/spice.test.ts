@@ -3,7 +3,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { solveSteadyState } from './steady.js';
+import { solveSteadyState } from './periodic.js';
 import { params, rel } from './cases.test-support.js';
 import type { SteadyStateResult, TdParams } from './types.js';
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { solveSteadyState } from './steady.js';
+import { solveSteadyState } from './periodic.js';
 import { params, rel } from './cases.test-support.js';
 import type { SteadyStateResult, TdParams } from './types.js';
 

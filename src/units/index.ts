@@ -1,5 +1,6 @@
 export { parseQuantity, type ParseResult } from './parse.js';
 export { parseLoad } from './parseLoad.js';
+export type { LoadSpec } from './load.js';
 export { formatSi, formatSpice } from './format.js';
 export {
   KIND_EXAMPLE,

@@ -1,4 +1,4 @@
-import type { LoadSpec } from '../design/types.js';
+import type { LoadSpec } from './load.js';
 import { parseQuantity, type ParseResult } from './parse.js';
 import { UNIT_SPELLINGS, prefixesOf } from './table.js';
 

@@ -31,6 +31,7 @@ export const STATUS_STYLE: Record<CornerStatus, StatusStyle> = {
   'not-settled': { symbol: '≈', label: 'not settled' },
   predicted: { symbol: '○', label: 'FHA only' },
   unreachable: { symbol: '∅', label: 'no FHA solution' },
+  'outside-limits': { symbol: '!', label: 'outside limits' },
 };
 
 /** Statuses in the order the report lists them. */

@@ -1,3 +1,4 @@
+/** Periodic steady state of the ideal time-domain model under a resistive load (not the simulator loop: that is run/steady.ts). */
 import { solveHeldOutput } from './held.js';
 import { brent } from './root.js';
 import { solveLoaded } from './loaded.js';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { solveSteadyState } from './steady.js';
+import { solveSteadyState } from './periodic.js';
 import { solveHeldOutput } from './held.js';
 import { balance, params, rel, resonance } from './cases.test-support.js';
 import type { TdParams } from './types.js';
