@@ -70,4 +70,16 @@ describe('compareCorner', () => {
     expect(row.error).toBeNull();
     expect(row.verdict).toBe('info');
   });
+  it('a metric named in compare takes its own tolerance; off reports it without flagging (numbers and yes/no metrics)', () => {
+    const d = makeDesign({ compare: { metrics: { magnetizingCurrentPeak: 0.3, tankCurrentRms: 'off', zvs: 'off' } } });
+    const c = compareCorner(d, fha, sim({ magnetizingCurrentPeak: fha.magnetizingCurrentPeak! * 1.2, tankCurrentRms: fha.tankCurrentRms! * 2,
+      tankCurrentPeak: fha.tankCurrentPeak! * 1.2, zvs: false }), false);
+    const row = (m: string) => c.rows.find((r) => r.metric === m)!;
+    expect(row('magnetizingCurrentPeak')).toMatchObject({ tolerance: 0.3, verdict: 'ok' }); // 20 % < 30 %
+    expect(row('tankCurrentRms')).toMatchObject({ tolerance: null, verdict: 'info' });
+    expect(row('tankCurrentRms').error).toBeCloseTo(1, 12); // still reported
+    expect(row('tankCurrentPeak')).toMatchObject({ tolerance: 0.1, verdict: 'diverged' }); // the group still applies to the others
+    expect(row('zvs')).toMatchObject({ fha: true, sim: false, verdict: 'info' });
+    expect(c.divergences.map((x) => x.metric)).toEqual(['tankCurrentPeak']);
+  });
 });

@@ -1,4 +1,5 @@
 import type { Design } from '../design/types.js';
+import { COMPARE_METRIC_GROUP, type CompareKey, type ComparedMetric } from '../design/fields.js';
 import type { FhaResult } from '../fha/types.js';
 import type { SimMetrics } from '../measure/types.js';
 import type { ComparisonRow, Divergence } from './types.js';
@@ -6,23 +7,16 @@ import { explainCurrent, explainFrequency, explainGain, explainStatus, zoneOf, t
 
 type Group = 'fs' | 'vout' | 'gain' | 'currents' | 'voltages';
 
-/** Numeric metrics compared, with the compare group that supplies their tolerance. */
-export const COMPARED: { metric: keyof SimMetrics & keyof FhaResult; group: Group }[] = [
-  { metric: 'fs', group: 'fs' },
-  { metric: 'vout', group: 'vout' },
-  { metric: 'gain', group: 'gain' },
-  { metric: 'tankCurrentRms', group: 'currents' },
-  { metric: 'tankCurrentPeak', group: 'currents' },
-  { metric: 'magnetizingCurrentPeak', group: 'currents' },
-  { metric: 'switchCurrentRms', group: 'currents' },
-  { metric: 'switchTurnOffCurrent', group: 'currents' },
-  { metric: 'diodeCurrentAvg', group: 'currents' },
-  { metric: 'diodeCurrentPeak', group: 'currents' },
-  { metric: 'diodeCurrentRms', group: 'currents' },
-  { metric: 'outputRippleCurrentRms', group: 'currents' },
-  { metric: 'crVoltagePeak', group: 'voltages' },
-  { metric: 'diodeReverseVoltage', group: 'voltages' },
-];
+/** Numeric metrics compared, with the compare group that supplies their tolerance (from the design's table). */
+export const COMPARED: { metric: ComparedMetric & keyof SimMetrics & keyof FhaResult; group: Group }[] =
+  (Object.entries(COMPARE_METRIC_GROUP) as [ComparedMetric, Group][]).map(([metric, group]) => ({ metric, group }));
+
+/** Tolerance of one metric: its own `compare` setting, else its group's; null when set to `off`. */
+export function toleranceOf(design: Design, metric: CompareKey, group?: Group): number | null {
+  const own = design.compare.metrics?.[metric];
+  if (own === 'off') return null;
+  return own ?? (group ? design.compare[group] : null);
+}
 
 const STATUS: ('zvs' | 'zcs' | 'region')[] = ['zvs', 'zcs', 'region'];
 
@@ -45,10 +39,10 @@ export function compareCorner(design: Design, fha: FhaResult, sim: SimMetrics, r
     const f = fha[metric] as number | null;
     const s = sim[metric] as number;
     const informational = (metric === 'fs' && !regulated) || (metric === 'vout' && regulated);
-    const tolerance = informational ? null : design.compare[group];
+    const tolerance = informational ? null : toleranceOf(design, metric, group);
     // A zero or non-finite FHA value has no relative error (the table shows '!' for a diverged one).
     if (f === null || !Number.isFinite(s) || !Number.isFinite(f) || f === 0) {
-      const diverged = f === null && metric === 'fs' && regulated;
+      const diverged = f === null && metric === 'fs' && regulated && tolerance !== null;
       rows.push({ metric, fha: f, sim: s, error: null, tolerance, verdict: diverged ? 'diverged' : 'info',
         ...(diverged ? { reason: 'FHA finds no ZVS-compatible frequency for this gain; simulation regulates here (FHA under-predicts gain below resonance, method reference 2.7, 5.3)' } : {}) });
       continue;
@@ -68,8 +62,9 @@ export function compareCorner(design: Design, fha: FhaResult, sim: SimMetrics, r
   for (const metric of STATUS) {
     const f = fha[metric];
     const s = sim[metric];
-    const diverged = f !== null && f !== s;
-    rows.push({ metric, fha: f, sim: s, error: null, tolerance: null, verdict: diverged ? 'diverged' : 'ok',
+    const off = design.compare.metrics?.[metric] === 'off';
+    const diverged = f !== null && f !== s && !off;
+    rows.push({ metric, fha: f, sim: s, error: null, tolerance: null, verdict: diverged ? 'diverged' : off ? 'info' : 'ok',
       ...(diverged ? { reason: explainStatus(metric, zone, fha, sim) } : {}) });
   }
   rows.push({ metric: 'mode', fha: null, sim: sim.mode, error: null, tolerance: null, verdict: 'info' });

@@ -96,6 +96,61 @@ export const SECTION_FIELDS = {
 
 export type SectionName = keyof typeof SECTION_FIELDS;
 
+/**
+ * Compared metrics that `compare` may name one by one, with the group whose tolerance they take
+ * otherwise. `fs`, `vout` and `gain` are groups of one. Keep in step with compare/compare.ts
+ * (it builds its list from this table).
+ */
+export const COMPARE_METRIC_GROUP = {
+  fs: 'fs',
+  vout: 'vout',
+  gain: 'gain',
+  tankCurrentRms: 'currents',
+  tankCurrentPeak: 'currents',
+  magnetizingCurrentPeak: 'currents',
+  switchCurrentRms: 'currents',
+  switchTurnOffCurrent: 'currents',
+  diodeCurrentAvg: 'currents',
+  diodeCurrentPeak: 'currents',
+  diodeCurrentRms: 'currents',
+  outputRippleCurrentRms: 'currents',
+  crVoltagePeak: 'voltages',
+  diodeReverseVoltage: 'voltages',
+} as const satisfies Record<string, keyof typeof SECTION_FIELDS.compare>;
+
+/** Status metrics compared as yes/no; `compare` accepts only `off` for them. */
+export const COMPARE_STATUS_METRICS = ['zvs', 'zcs', 'region'] as const;
+
+export type ComparedMetric = keyof typeof COMPARE_METRIC_GROUP;
+export type CompareKey = ComparedMetric | (typeof COMPARE_STATUS_METRICS)[number];
+
+const rating = (unit: 'volt' | 'ampere', example: string, description: string): QuantitySpec =>
+  q(unit, example, description, { plausible: unit === 'volt' ? [1e-3, 1e5] : [1e-6, 1e5] });
+
+/**
+ * Leaf fields of the optional `limits` section (`frequency` is a {min, max} mapping read apart).
+ * Ratings are upper limits on the quantity with the same name in the results; `derating` scales
+ * each rating (bound = rating x derating), not the frequency window or the ZVS margin.
+ */
+export const LIMIT_FIELDS = {
+  zvs: { kind: 'enum', values: ['required', 'ignore'], default: 'ignore', description: 'required: every switch turn-on must be ZVS; ignore: ZVS is not a limit (capacitive operation always is).' } as EnumSpec,
+  zvsMargin: q('ratio', '20%', 'The turn-off current must be at least (1 + zvsMargin) x the current that swings the bridge node within the dead time, 2 Coss Vin / deadTime.', { sign: 'nonNegative', atMost: 10 }),
+  crVoltage: rating('volt', '450 V', 'Rating for the peak voltage across Cr (the larger of its highest and lowest value; a half-bridge Cr carries Vin/2 DC).'),
+  tankCurrentRms: rating('ampere', '3 A', 'Rating for the RMS tank current.'),
+  switchCurrentRms: rating('ampere', '2.5 A', 'Rating for the RMS current of the most stressed primary switch.'),
+  diodeReverseVoltage: rating('volt', '60 V', 'Rating for the reverse voltage of the most stressed rectifier diode.'),
+  diodeCurrentRms: rating('ampere', '15 A', 'Rating for the RMS current of the most stressed rectifier diode.'),
+  outputRippleCurrentRms: rating('ampere', '8 A', 'Rating for the RMS ripple current of the output capacitor.'),
+  derating: q('ratio', '80%', 'Share of each rating that may be used: bound = rating x derating.', { atMost: 1, default: 1 }),
+} satisfies Record<string, FieldSpec>;
+
+/** The controller's switching-frequency window, `limits.frequency: {min, max}`; either may be left out. */
+export const FREQUENCY_WINDOW_FIELDS = {
+  min: q('hertz', '60 kHz', 'Lowest switching frequency the controller can command.', { plausible: [1, 1e9] }),
+  max: q('hertz', '150 kHz', 'Highest switching frequency the controller can command.', { plausible: [1, 1e9] }),
+} satisfies Record<string, QuantitySpec>;
+
+
 /** Sections that may be left out entirely (every field has a default). */
 export const OPTIONAL_SECTIONS: readonly SectionName[] = ['tolerances', 'compare', 'simulation'];
 

@@ -5,6 +5,8 @@ import { parseQuantity } from '../units/index.js';
 import { SECTION_FIELDS } from './fields.js';
 import { designJsonSchema } from './jsonSchema.js';
 import { DEVICE_KEYS } from './names.js';
+import { COMPARE_KEYS } from './compareSection.js';
+import { LIMIT_KEYS } from './limits.js';
 import { CORNER_KEYS, OPERATING_KEYS } from './operating.js';
 import { ROOT_KEYS, parseDesign } from './parse.js';
 
@@ -72,7 +74,10 @@ describe('designJsonSchema', () => {
   it('lists exactly the keys the parser knows', () => {
     const p = designJsonSchema.properties as S;
     expect(Object.keys(p).sort()).toEqual([...ROOT_KEYS].sort());
-    for (const [name, fields] of Object.entries(SECTION_FIELDS)) expect(Object.keys(p[name].properties)).toEqual(Object.keys(fields));
+    for (const [name, fields] of Object.entries(SECTION_FIELDS)) if (name !== 'compare') expect(Object.keys(p[name].properties)).toEqual(Object.keys(fields));
+    expect(Object.keys(p.compare.properties)).toEqual([...COMPARE_KEYS]);
+    expect(Object.keys(p.limits.properties)).toEqual([...LIMIT_KEYS]);
+    expect(Object.keys(p.limits.properties.frequency.properties)).toEqual(['min', 'max']);
     expect(Object.keys(p.operating.properties)).toEqual([...OPERATING_KEYS]);
     expect(Object.keys(p.operating.properties.corners.items.properties)).toEqual([...CORNER_KEYS]);
     expect(Object.keys(p.devices.properties)).toEqual([...DEVICE_KEYS]);

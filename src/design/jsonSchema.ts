@@ -1,5 +1,6 @@
 import { loadPattern, quantityPattern } from '../units/index.js';
-import { LOAD_DESCRIPTION, MAX_CORNERS, MAX_LIST, OPERATING_FIELDS, OPTIONAL_SECTIONS, SECTION_FIELDS, TANK_FIELDS, type FieldSpec, type QuantitySpec, type SectionName } from './fields.js';
+import { COMPARE_STATUS_METRICS, FREQUENCY_WINDOW_FIELDS, LIMIT_FIELDS, LOAD_DESCRIPTION, MAX_CORNERS, MAX_LIST, OPERATING_FIELDS, OPTIONAL_SECTIONS, SECTION_FIELDS, TANK_FIELDS, type CompareKey, type FieldSpec, type QuantitySpec, type SectionName } from './fields.js';
+import { COMPARE_KEYS, metricSpec } from './compareSection.js';
 import { MODEL_NAME_PATTERN, NAME_PATTERN } from './names.js';
 
 type Schema = Record<string, unknown>;
@@ -40,6 +41,33 @@ const load: Schema = { description: LOAD_DESCRIPTION, type: 'string', pattern: l
 const frequency = quantity(OPERATING_FIELDS.frequency, 'Fixed switching frequency.');
 const regulate: Schema = { const: 'regulate', description: 'Solve the switching frequency that gives output.voltage (FHA), then simulate at it.' };
 
+const OFF: Schema = { const: 'off', description: 'Report the metric(s) without flagging a difference.' };
+
+/** `compare`: group tolerances, single metrics by name, and "off". */
+function compareSchema(description: string): Schema {
+  const groups = SECTION_FIELDS.compare as Record<string, QuantitySpec>;
+  const properties = Object.fromEntries(COMPARE_KEYS.map((k): [string, Schema] => {
+    if ((COMPARE_STATUS_METRICS as readonly string[]).includes(k)) return [k, { ...OFF, description: `Compare ${k} without flagging a disagreement.` }];
+    const spec = groups[k] ?? metricSpec(k as CompareKey);
+    const q = quantity(spec, groups[k] ? spec.description : `Allowed relative difference for ${k} alone (overrides its group).`);
+    return [k, { ...q, anyOf: [...(q.anyOf as Schema[]), OFF] }];
+  }));
+  return { type: 'object', description, additionalProperties: false, required: [], properties };
+}
+
+const limitsSchema: Schema = {
+  type: 'object',
+  description: 'Design limits, evaluated per corner on FHA, the ideal model and the simulation. Optional; every key is optional. Capacitive operation is always outside limits.',
+  additionalProperties: false,
+  properties: {
+    frequency: {
+      type: 'object', description: "The controller's switching-frequency window.", additionalProperties: false, minProperties: 1,
+      properties: { min: quantity(FREQUENCY_WINDOW_FIELDS.min), max: quantity(FREQUENCY_WINDOW_FIELDS.max) },
+    },
+    ...Object.fromEntries(Object.entries(LIMIT_FIELDS).map(([k, spec]) => [k, field(spec)])),
+  },
+};
+
 const SECTION_TEXT: Record<SectionName, string> = {
   topology: 'Bridge and rectifier type.',
   tank: 'Resonant tank and transformer, all referred to the primary.',
@@ -47,7 +75,7 @@ const SECTION_TEXT: Record<SectionName, string> = {
   rectifier: 'Secondary rectifier diodes.',
   output: 'Output filter and regulation target.',
   tolerances: 'Component tolerances; with corners: extremes the nominal set and every low/high combination of Lr, Cr, Lm are checked (9 sets).',
-  compare: 'Allowed FHA-versus-simulation differences, as fractions.',
+  compare: 'Allowed FHA-versus-simulation differences, as fractions, per group or per metric by name; "off" reports a metric without flagging it.',
   simulation: 'Simulation control.',
 };
 
@@ -92,7 +120,10 @@ export const designJsonSchema: Schema = {
   required: ['name', 'topology', 'tank', 'switches', 'rectifier', 'output', 'operating'],
   properties: {
     name: { type: 'string', pattern: NAME_PATTERN, description: 'Design name for reports: 1 to 80 letters, digits, spaces, "_", "." or "-".' },
-    ...Object.fromEntries((Object.keys(SECTION_FIELDS) as SectionName[]).map((k) => [k, section(SECTION_FIELDS[k] as Record<string, FieldSpec>, `${SECTION_TEXT[k]}${OPTIONAL_SECTIONS.includes(k) ? ' Optional; every field has a default.' : ''}`)])),
+    ...Object.fromEntries((Object.keys(SECTION_FIELDS) as SectionName[]).map((k) => {
+      const text = `${SECTION_TEXT[k]}${OPTIONAL_SECTIONS.includes(k) ? ' Optional; every field has a default.' : ''}`;
+      return [k, k === 'compare' ? compareSchema(text) : section(SECTION_FIELDS[k] as Record<string, FieldSpec>, text)];
+    })),
     operating: {
       type: 'object',
       description: 'Operating corners: the grid vin x load x frequency, plus any corners listed by hand.',
@@ -114,5 +145,6 @@ export const designJsonSchema: Schema = {
       additionalProperties: false,
       properties: { diodeModel: device('Rectifier diode model'), switchModel: device('Primary switch model') },
     },
+    limits: limitsSchema,
   },
 };

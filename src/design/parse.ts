@@ -8,6 +8,8 @@ import { readOperating, type OperatingValues } from './operating.js';
 import type { Problem } from './problem.js';
 import { Reader, type Entry, type Loc } from './reader.js';
 import { readSection, type SectionValues } from './sections.js';
+import { readLimits } from './limits.js';
+import { readCompare } from './compareSection.js';
 
 /** Outcome of `parseDesign`: a validated Design plus warnings, or every error found. */
 export type ParseDesignResult =
@@ -26,9 +28,10 @@ export type ParseDesignResult =
  */
 export const MAX_ALIAS_COUNT = 100;
 
-export const ROOT_KEYS = ['name', 'topology', 'tank', 'switches', 'rectifier', 'output', 'operating', 'tolerances', 'compare', 'simulation', 'devices'] as const;
+export const ROOT_KEYS = ['name', 'topology', 'tank', 'switches', 'rectifier', 'output', 'operating', 'tolerances', 'compare', 'simulation', 'devices', 'limits'] as const;
 
-const SECTIONS = Object.keys(SECTION_FIELDS) as SectionName[];
+// compare is read by readCompare (group keys, metric names and "off")
+const SECTIONS = (Object.keys(SECTION_FIELDS) as SectionName[]).filter((k) => k !== 'compare');
 
 function locOf(text: string, offset: number): Loc {
   const before = text.slice(0, offset);
@@ -88,6 +91,8 @@ export function parseDesign(text: string, file: string): ParseDesignResult {
 
   const name = readName(r, root.get('name'), rootEntry);
   const s = Object.fromEntries(SECTIONS.map((k) => [k, readSection(r, root, k, rootEntry)])) as Record<SectionName, SectionValues | undefined>;
+  const compare = readCompare(r, root);
+  const limits = readLimits(r, root);
   const op: OperatingValues | undefined = readOperating(r, root, rootEntry);
   const devices = readDevices(r, root);
 
@@ -95,17 +100,17 @@ export function parseDesign(text: string, file: string): ParseDesignResult {
     op !== undefined && Object.values(op).every((x) => x !== undefined);
   const core = physicsReady ? {
     topology: s.topology, tank: s.tank, switches: s.switches, rectifier: s.rectifier, output: s.output,
-    operating: op, tolerances: s.tolerances, compare: s.compare, simulation: s.simulation,
+    operating: op, tolerances: s.tolerances, compare, simulation: s.simulation,
   } as unknown as Omit<Design, 'name' | 'file' | 'devices'> : undefined;
   if (core) checkPhysics(core, r);
 
   // yaml's own duplicate-key reports are kept only where the walker did not report the same key with its path
   const dupAt = new Set(r.errors.filter((p) => p.code === 'duplicate-key').map((p) => `${p.line}:${p.column}`));
   const errors = [...yamlIssues.filter((p) => !dupAt.has(`${p.line}:${p.column}`)), ...r.errors];
-  if (errors.length > 0 || !core || name === undefined || !complete(s.compare) || !complete(s.simulation)) {
+  if (errors.length > 0 || !core || name === undefined || !compare || !complete(s.simulation)) {
     return { ok: false, problems: errors.sort(byPosition) };
   }
-  const design = { name, file, ...core, devices } as Design;
+  const design = { name, file, ...core, devices, ...(limits ? { limits } : {}) } as Design;
   const modelFileAt: Partial<Record<'diodeModel' | 'switchModel', Loc>> = {};
   for (const key of ['diodeModel', 'switchModel'] as const) {
     const at = r.seen.get(`devices.${key}.file`);

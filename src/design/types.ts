@@ -3,6 +3,8 @@
  * fractions (tolerances, compare limits) are plain ratios (5 % = 0.05).
  * Text such as "27 nF" never reaches this type: the loader parses it at the boundary.
  */
+import type { CompareKey } from './fields.js';
+
 export type Inverter = 'half-bridge' | 'full-bridge';
 export type Rectifier = 'center-tapped' | 'full-bridge';
 export type Accuracy = 'fast' | 'normal' | 'fine';
@@ -32,6 +34,25 @@ export interface DeviceModel {
   name: string;
 }
 
+/** Design limits, SI units. An absent key sets no limit; capacitive operation is always outside. */
+export interface DesignLimits {
+  /** The controller's switching-frequency window, Hz. */
+  frequency?: { min?: number; max?: number };
+  /** 'required': every turn-on edge must be ZVS. @default 'ignore' */
+  zvs: 'required' | 'ignore';
+  /** Turn-off current >= (1 + zvsMargin) x 2 Coss Vin / deadTime (fraction, 20 % = 0.2). */
+  zvsMargin?: number;
+  /** Ratings (V, A); each bound is rating x derating. */
+  crVoltage?: number;
+  tankCurrentRms?: number;
+  switchCurrentRms?: number;
+  diodeReverseVoltage?: number;
+  diodeCurrentRms?: number;
+  outputRippleCurrentRms?: number;
+  /** Share of each rating that may be used. @default 1 */
+  derating: number;
+}
+
 export interface Design {
   name: string;
   /** Design file path as given by the user, for reports; absent for designs built in code. */
@@ -58,7 +79,20 @@ export interface Design {
     corners: ExplicitCorner[];
   };
   tolerances: { lr: number; cr: number; lm: number; corners: 'extremes' | 'nominal' };
-  compare: { vout: number; fs: number; gain: number; currents: number; voltages: number };
+  compare: {
+    vout: number;
+    fs: number;
+    gain: number;
+    currents: number;
+    voltages: number;
+    /**
+     * Tolerances set for single metrics by name (a fraction, or 'off': reported, never flagged);
+     * they override the group value. A group written as `off` lists each of its metrics here.
+     */
+    metrics?: Partial<Record<CompareKey, number | 'off'>>;
+  };
+  /** Design limits (the optional `limits` section); absent when the file has none. */
+  limits?: DesignLimits;
   simulation: {
     /** @default 'normal' */
     accuracy: Accuracy;
