@@ -1,7 +1,7 @@
 /**
  * Case 5: the demo run twice through runStudy with a file cache in a fresh temp folder. The second
- * run must simulate nothing (summary.simulations 0, cacheHits = corners) and give the same
- * simulated values.
+ * run must simulate nothing (run.simulated 0, every corner from the cache) and give a byte-identical
+ * results.json.
  */
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
@@ -12,6 +12,7 @@ import { createFileCache } from '../src/run/cache.js';
 import { startPoint } from '../src/run/seed.js';
 import { predictCorner } from '../src/fha/predict.js';
 import { runStudy } from '../src/run/study.js';
+import { renderResultsJson } from '../src/report/json.js';
 import type { BenchDesign } from './settling.js';
 import { log, median } from './util.js';
 
@@ -24,7 +25,7 @@ export interface CaseCache {
   secondSimulations: number;
   secondCacheHits: number;
   firstSimulations: number;
-  /** Every corner's simulated values (fromCache aside) equal in both runs. */
+  /** Both runs' results.json byte-identical. */
   sameValues: boolean;
   /** Median time per corner of cache.key() and of the start point it needs (FHA + time-domain model), ms: the second run's main cost. */
   keyMedianMs: number;
@@ -42,8 +43,7 @@ export async function measureCache(d: BenchDesign, engine: SimEngine, jobs: numb
     t0 = performance.now();
     const second = await runStudy(d.design, { engine, jobs, cache });
     const secondMs = performance.now() - t0;
-    const strip = (s: unknown) => JSON.stringify({ ...(s as object), fromCache: undefined });
-    const sameValues = first.results.corners.every((c, i) => strip(c.sim) === strip(second.results.corners[i]?.sim));
+    const sameValues = renderResultsJson(first.results) === renderResultsJson(second.results);
     const version = await engine.version();
     const startMs: number[] = [];
     const keyMs: number[] = [];
@@ -55,10 +55,10 @@ export async function measureCache(d: BenchDesign, engine: SimEngine, jobs: numb
       startMs.push(k1 - k0);
       keyMs.push(performance.now() - k1);
     }
-    const s = second.results.summary;
-    log(`cache ${d.key}: second run ${secondMs.toFixed(0)} ms, ${s.simulations} simulations, ${s.cacheHits} cache hits`);
-    return { design: d.key, corners: first.results.corners.length, jobs, firstMs, secondMs, secondSimulations: s.simulations,
-      secondCacheHits: s.cacheHits, firstSimulations: first.results.summary.simulations, sameValues, keyMedianMs: median(keyMs), startMedianMs: median(startMs) };
+    const s = second.run;
+    log(`cache ${d.key}: second run ${secondMs.toFixed(0)} ms, ${s.simulated} simulations, ${s.fromCache.length} cache hits`);
+    return { design: d.key, corners: first.results.corners.length, jobs, firstMs, secondMs, secondSimulations: s.simulated,
+      secondCacheHits: s.fromCache.length, firstSimulations: first.run.simulated, sameValues, keyMedianMs: median(keyMs), startMedianMs: median(startMs) };
   } finally {
     await rm(dir, { recursive: true, force: true });
   }

@@ -87,7 +87,7 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
     // started before the first corner, so a log shows at once how much work is coming
     const progress = createProgress(process.stderr, filterCorners(expandCorners(design), o.only).length);
     progress.start();
-    const { results, waveforms } = await runStudy(design, {
+    const { results, waveforms, run } = await runStudy(design, {
       engine, jobs, only: o.only, signal: controller.signal,
       cache: o.cache ? createFileCache(o.cacheDir) : undefined,
       timeoutMs: o.timeout ? o.timeout * 1000 : undefined,
@@ -100,6 +100,8 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
       { path: join(o.out, 'results.csv'), text: renderResultsCsv(results) },
       { path: join(o.out, 'junit.xml'), text: renderJunit(results) },
       { path: join(o.out, 'waveforms.json'), text: renderWaveformsJson(waveforms) },
+      // what this run took from the cache: kept out of results.json, which stays byte-identical
+      { path: join(o.out, 'run-log.json'), text: `${JSON.stringify({ schema: 'tankcheck/run-log@1', cacheDir: o.cache ? o.cacheDir : null, ...run }, null, 2)}\n` },
     ];
     if (o.html) files.push({ path: o.html, text: renderHtmlReport({ results, waveforms, design }) });
     await writeFilesAtomic(files);
@@ -107,6 +109,7 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
     process.stdout.write(`\n${renderSummary(results)}`);
     if (results.baseline) process.stdout.write(renderBaseline(results.baseline));
     process.stdout.write(`wrote ${files.map((f) => f.path).join(', ')}\n`);
+    if (o.cache) process.stderr.write(`cache: ${run.fromCache.length} of ${results.corners.length} corners from ${o.cacheDir}; ${run.simulated} operating points simulated now\n`);
     if (results.incomplete) {
       const finished = results.corners.filter((c) => c.status !== 'predicted').length;
       const rerun = o.cache ? ' (a rerun takes the finished ones from the cache)' : '';

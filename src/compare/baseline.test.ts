@@ -9,7 +9,7 @@ function withSim(r: Results, scale = 1): Results {
   for (const c of copy.corners) {
     c.status = 'ok';
     c.sim = { ...(c.fha as never as Record<string, number>), fs: c.fha.fs!, gain: c.fha.gain! * scale, tankCurrentRms: c.fha.tankCurrentRms!,
-      zvs: true, zcs: true, region: 'inductive', mode: 'PO', cycles: 24, runs: 1, simulations: 1, settled: true, settleError: 0, fromCache: false } as never;
+      zvs: true, zcs: true, region: 'inductive', mode: 'PO', cycles: 24, runs: 1, simulations: 1, settled: true, settleError: 0 } as never;
   }
   return copy;
 }

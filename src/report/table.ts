@@ -97,7 +97,7 @@ export function renderSummary(results: Results): string {
   const s = results.summary;
   const parts = [`${s.corners} corners: ${s.ok} ok, ${s.diverged} diverged, ${s.failed} failed, ${s.notSettled} not settled`];
   if (s.predicted) parts.push(`${s.predicted} not simulated`);
-  const head = `${parts.join(', ')}. Engine ${results.engine?.name ?? 'none'} ${results.engine?.version ?? ''}; ${s.simulations} operating points simulated, ${s.cacheHits} from cache.`;
+  const head = `${parts.join(', ')}. Engine ${results.engine?.name ?? 'none'} ${results.engine?.version ?? ''}; ${s.simulations} operating points simulated.`;
   const worst = s.worst.slice(0, 5).map((w) => `  ${w.id} ${w.metric}${w.error !== null ? ` ${(w.error * 100).toFixed(1)} % (tolerance ${((w.tolerance ?? 0) * 100).toFixed(0)} %)` : ' status differs'}`);
   const inc = results.incomplete ? '\nINCOMPLETE: the run was interrupted; unfinished corners carry FHA values only.' : '';
   return `${head}${worst.length ? `\nLargest divergences:\n${worst.join('\n')}` : ''}${inc}\n`;

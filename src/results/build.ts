@@ -78,8 +78,6 @@ export function failed(corner: Corner, fha: FhaResult, failure: CornerFailure, m
 export interface EnvelopeFacts {
   /** Engine name and version; null for FHA-only results. */
   engine: { name: string; version: string } | null;
-  /** Corners answered from the cache. @default 0 */
-  cacheHits?: number;
   /** The study was interrupted: some corners were never simulated. @default false */
   incomplete?: boolean;
 }
@@ -91,6 +89,6 @@ export function envelope(design: { name: string; file?: string | null }, corners
     schema: 'tankcheck/results@1', ...(facts.incomplete ? { incomplete: true } : {}), tool: { name: 'tankcheck', version: TOOL_VERSION },
     design: { name: design.name, file: design.file ?? null },
     engine: facts.engine,
-    corners, summary: summarize(corners, facts.cacheHits ?? 0),
+    corners, summary: summarize(corners),
   };
 }

@@ -1,7 +1,7 @@
 import type { CornerResult, ResultsSummary } from './types.js';
 
 /** Counts by status, simulation totals and the worst divergences (largest |error| / tolerance first). */
-export function summarize(corners: CornerResult[], cacheHits: number, worstCount = 10): ResultsSummary {
+export function summarize(corners: CornerResult[], worstCount = 10): ResultsSummary {
   const count = (s: CornerResult['status']) => corners.filter((c) => c.status === s).length;
   const worst = corners
     .flatMap((c) => c.divergences.map((d) => ({ id: c.id, metric: d.metric, error: d.error, tolerance: d.tolerance })))
@@ -15,8 +15,7 @@ export function summarize(corners: CornerResult[], cacheHits: number, worstCount
     notSettled: count('not-settled'),
     predicted: count('predicted'),
     unreachable: count('unreachable'),
-    simulations: corners.reduce((s, c) => s + (c.sim && !c.sim.fromCache ? c.sim.simulations : 0), 0),
-    cacheHits,
+    simulations: corners.reduce((s, c) => s + (c.sim ? c.sim.simulations : 0), 0),
     worst,
   };
 }

@@ -25,7 +25,6 @@ export interface SimSummary extends SimMetrics {
   settled: boolean;
   /** Relative difference of the last two output-voltage windows. */
   settleError: number;
-  fromCache: boolean;
 }
 
 export interface CornerResult {
@@ -58,8 +57,12 @@ export interface ResultsSummary {
   notSettled: number;
   predicted: number;
   unreachable: number;
+  /**
+   * Operating points simulated to obtain these results (cached corners count what their first run
+   * simulated), so a cached and an uncached run give the same file. What this run took from the
+   * cache is a fact of the run, not of the results: see `StudyOutput.run`.
+   */
   simulations: number;
-  cacheHits: number;
   /** Worst divergences, largest |error| / tolerance first. */
   worst: { id: string; metric: string; error: number | null; tolerance: number | null }[];
 }

@@ -53,7 +53,7 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
   if (!steady.ok || !steady.metrics) {
     return { result: failed(corner, fha, steady.failure ?? { kind: 'engine', message: 'no result' }) };
   }
-  const sim: SimSummary = { ...steady.metrics, cycles, runs, simulations, settled: steady.settled, settleError: steady.settleError, fromCache: false };
+  const sim: SimSummary = { ...steady.metrics, cycles, runs, simulations, settled: steady.settled, settleError: steady.settleError };
   const cmp = compareCorner(design, fha, steady.metrics, regulated);
   const measured = { sim, comparison: cmp.rows, divergences: cmp.divergences };
   const result: CornerResult = regulationMet ? simulated(corner, fha, measured)

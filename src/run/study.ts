@@ -37,9 +37,18 @@ export interface StudyOptions {
   timeoutMs?: number;
 }
 
+/** Facts of one run that are not part of the (deterministic) results: what came from the cache. */
+export interface RunFacts {
+  /** Corners taken from the cache, in corner order. */
+  fromCache: string[];
+  /** Operating points simulated by this run (cached corners excluded). */
+  simulated: number;
+}
+
 export interface StudyOutput {
   results: Results;
   waveforms: WaveformExcerpt[];
+  run: RunFacts;
 }
 
 /** FHA-only results (no engine): every corner predicted. */
@@ -59,7 +68,7 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
   const outcomes: (CornerOutcome | undefined)[] = new Array(corners.length);
   let done = 0;
   let failed = 0;
-  let cacheHits = 0;
+  const cached = new Set<number>();
   await mapPool(corners, opts.jobs ?? 1, async (corner, i) => {
     if (opts.signal?.aborted) return;
     const fha = predictCorner(design, corner);
@@ -67,7 +76,7 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
     const key = opts.cache?.key(design, corner, engineVersion, start);
     let out = key ? await opts.cache!.get(key) : undefined;
     if (out) {
-      cacheHits++;
+      cached.add(i);
       out = refreshComparison(design, corner, fha, out);
     } else {
       out = await simulateCorner(opts.engine, design, corner, fha, { signal: opts.signal, timeoutMs: opts.timeoutMs, start })
@@ -87,15 +96,19 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
   // not outcomes.some(): the array is sparse, and some() skips the holes of corners never started
   const incomplete = corners.some((_, i) => outcomes[i] === undefined);
   return {
-    results: envelope(design, results, { engine: { name: opts.engine.name, version: engineVersion }, cacheHits, incomplete }),
+    results: envelope(design, results, { engine: { name: opts.engine.name, version: engineVersion }, incomplete }),
     waveforms: outcomes.flatMap((o) => (o?.waveform ? [o.waveform] : [])),
+    run: {
+      fromCache: corners.filter((_, i) => cached.has(i)).map((c) => c.id),
+      simulated: results.reduce((s, c, i) => s + (c.sim && !cached.has(i) ? c.sim.simulations : 0), 0),
+    },
   };
 }
 
 /** A cached simulation is compared again with the current tolerances (compare: may have changed). */
 function refreshComparison(design: Design, corner: Corner, fha: CornerResult['fha'], out: CornerOutcome): CornerOutcome {
   const r = out.result;
-  if (!r.sim || r.status === 'failed') return { ...out, result: { ...r, fha, sim: r.sim ? { ...r.sim, fromCache: true } : null } };
+  if (!r.sim || r.status === 'failed') return { ...out, result: { ...r, fha } };
   const cmp = compareCorner(design, fha, r.sim, corner.fs === null);
-  return { ...out, result: { ...r, ...simulated(corner, fha, { sim: { ...r.sim, fromCache: true }, comparison: cmp.rows, divergences: cmp.divergences }) } };
+  return { ...out, result: { ...r, ...simulated(corner, fha, { sim: r.sim, comparison: cmp.rows, divergences: cmp.divergences }) } };
 }
