@@ -1,5 +1,6 @@
 import type { Design, ExplicitCorner, LoadSpec } from '../design/types.js';
 import type { Corner, TolSide } from './types.js';
+import { sampleCorners } from './random.js';
 
 /** Load resistance in ohm: %, W and A are converted at output.voltage; ohm is used as is. */
 export function loadResistance(spec: LoadSpec, design: Design): number {
@@ -56,34 +57,47 @@ export function toleranceSets(design: Design): Corner['tolerance'][] {
   return sets;
 }
 
+const NOMINAL: Corner['tolerance'] = { lr: 0, cr: 0, lm: 0 };
+
+/** tolId replaces the tolerance-set part of the id (a Monte Carlo sample's "s0017"). */
 function makeCorner(design: Design, vin: number, load: LoadSpec, fs: number | null,
-  tol: Corner['tolerance'], values: { lr: number; cr: number; lm: number }, prefix: string): Corner {
+  tol: Corner['tolerance'], values: { lr: number; cr: number; lm: number }, prefix: string, tolId = tolIdPart(tol)): Corner {
   const r = loadResistance(load, design);
   const v = design.output.voltage;
   return {
-    id: `${prefix}v${idNumber(vin)}_${loadIdPart(load)}_${freqIdPart(fs)}_${tolIdPart(tol)}`,
+    id: `${prefix}v${idNumber(vin)}_${loadIdPart(load)}_${freqIdPart(fs)}_${tolId}`,
     vin, load: r, loadLabel: loadLabel(load), iout: v / r, pout: (v * v) / r, fs,
     ...values, turnsRatio: design.tank.turnsRatio, tolerance: tol,
   };
 }
 
 /**
- * Every corner of a design: vin x load x frequency x tolerance set (in that nesting order), then
- * the explicit `operating.corners`. Ids derive from the values, so the same file gives the same
- * ids in the same order on every run; a repeated id gets a numeric suffix.
+ * Every corner of a design: vin x load x frequency x tolerance set (in that nesting order; with
+ * corners: random, x sample instead of tolerance set), then the explicit `operating.corners`.
+ * Ids derive from the values (a sample's from its number), so the same file gives the same ids
+ * in the same order on every run; a repeated id gets a numeric suffix.
  */
 export function expandCorners(design: Design): Corner[] {
   const out: Corner[] = [];
   const { tank, tolerances: tl } = design;
   const freqs = design.operating.frequency === 'regulate' ? [null] : design.operating.frequency;
   const sets = toleranceSets(design);
+  const samples = tl.corners === 'random' ? sampleCorners(design) : [];
   for (const vin of design.operating.vin)
     for (const load of design.operating.load)
-      for (const fs of freqs)
+      for (const fs of freqs) {
+        if (tl.corners === 'random') {
+          for (const s of samples) {
+            const c = makeCorner(design, vin, load, fs, NOMINAL, s.values, '', s.suffix);
+            out.push({ ...c, turnsRatio: s.turnsRatio, sample: s.index, deviation: s.deviation });
+          }
+          continue;
+        }
         for (const tol of sets) {
           const values = { lr: tank.lr * (1 + tol.lr * tl.lr), cr: tank.cr * (1 + tol.cr * tl.cr), lm: tank.lm * (1 + tol.lm * tl.lm) };
           out.push(makeCorner(design, vin, load, fs, tol, values, ''));
         }
+      }
   design.operating.corners.forEach((x: ExplicitCorner, i) => {
     const values = { lr: x.lr ?? tank.lr, cr: x.cr ?? tank.cr, lm: x.lm ?? tank.lm };
     out.push(makeCorner(design, x.vin, x.load, x.frequency, { lr: 0, cr: 0, lm: 0 }, values, `x${i + 1}_`));

@@ -20,4 +20,8 @@ export interface Corner {
   lm: number;
   turnsRatio: number;
   tolerance: { lr: TolSide; cr: TolSide; lm: TolSide };
+  /** Monte Carlo sample number (tolerances.corners: random), 0-based; absent otherwise. */
+  sample?: number;
+  /** Each element's relative deviation from nominal in this sample (value = nominal x (1 + d)). */
+  deviation?: { lr: number; cr: number; lm: number; turnsRatio: number };
 }

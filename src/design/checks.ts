@@ -46,9 +46,16 @@ export function checkPhysics(d: Core, r: Reader): void {
     }
   });
   const t = d.tolerances;
-  if (t.corners === 'extremes' && lm > lr && lm * (1 - t.lm) <= lr * (1 + t.lr)) {
+  if (t.corners !== 'nominal' && lm > lr && lm * (1 - t.lm) <= lr * (1 + t.lr)) {
     r.problem('warning', 'implausible', 'tolerances.lm', at('tolerances.lm'),
       `at the tolerance extremes Lm (${f(lm * (1 - t.lm), 'H')}) falls to or below Lr (${f(lr * (1 + t.lr), 'H')})`);
+  }
+
+  if (t.corners !== 'random') {
+    for (const key of ['samples', 'seed', 'distribution', 'turnsRatio'] as const) {
+      const seen = r.seen.get(`tolerances.${key}`);
+      if (seen) r.problem('warning', 'implausible', `tolerances.${key}`, seen, `tolerances.${key} has an effect only with tolerances.corners: random`);
+    }
   }
 
   const fr = 1 / (2 * Math.PI * Math.sqrt(lr * cr));

@@ -77,7 +77,11 @@ export const SECTION_FIELDS = {
     lr: tol('Relative tolerance of Lr, 0 to below 50 %.'),
     cr: tol('Relative tolerance of Cr, 0 to below 50 %.'),
     lm: tol('Relative tolerance of Lm, 0 to below 50 %.'),
-    corners: { kind: 'enum', values: ['extremes', 'nominal'], default: 'nominal', description: 'nominal: tank at nominal values only; extremes: nominal plus every low/high combination of Lr, Cr, Lm (9 sets; an element with 0 tolerance stays nominal).' } as EnumSpec,
+    turnsRatio: tol('Relative tolerance of the turns ratio, 0 to below 50 %; used by corners: random (extremes vary Lr, Cr, Lm only).'),
+    corners: { kind: 'enum', values: ['extremes', 'nominal', 'random'], default: 'nominal', description: 'nominal: tank at nominal values only; extremes: nominal plus every low/high combination of Lr, Cr, Lm (9 sets; an element with 0 tolerance stays nominal); random: Monte Carlo samples of Lr, Cr, Lm and the turns ratio within their tolerances.' } as EnumSpec,
+    samples: q('number', '500', 'Monte Carlo samples (corners: random); each sample is checked at every operating point.', { integer: true, default: 100, atMost: 100000, usual: [10, 10000] }),
+    seed: q('number', '42', 'Seed of the Monte Carlo samples (corners: random), a whole number 0 .. 2^53-1: the same seed gives the same samples on any machine and with any --jobs.', { sign: 'nonNegative', integer: true, default: 1, atMost: Number.MAX_SAFE_INTEGER }),
+    distribution: { kind: 'enum', values: ['uniform', 'normal'], default: 'uniform', description: 'How a toleranced value spreads (corners: random): uniform over +-tolerance, or normal with the tolerance at 3 sigma, truncated there.' } as EnumSpec,
   },
   compare: {
     vout: limit(0.03, 'Allowed relative difference between FHA and simulated output voltage.'),
@@ -91,6 +95,7 @@ export const SECTION_FIELDS = {
     settleTolerance: q('ratio', '0.1%', 'Relative agreement of successive output-voltage averages that counts as steady state.', { default: 0.001, below: 0.5, usual: [1e-6, 0.01] }),
     maxCycles: q('number', '2000', 'Switching periods simulated at most per corner before it is reported as not settled.', { default: 2000, integer: true, plausible: [1, 1e6], usual: [50, 1e5] }),
     zvsThreshold: q('ratio', '5%', 'Switch voltage at turn-on below this fraction of Vin counts as ZVS.', { default: 0.05, below: 0.5 }),
+    confirm: q('number', '20', 'Corners of a Monte Carlo run (corners: random) simulated to confirm the screening: the worst per limit plus a seeded random validation set; 0 screens only.', { sign: 'nonNegative', integer: true, default: 20, atMost: 10000 }),
   },
 } satisfies Record<string, Record<string, FieldSpec>>;
 

@@ -74,7 +74,7 @@ const SECTION_TEXT: Record<SectionName, string> = {
   switches: 'Primary switches and dead time.',
   rectifier: 'Secondary rectifier diodes.',
   output: 'Output filter and regulation target.',
-  tolerances: 'Component tolerances; with corners: extremes the nominal set and every low/high combination of Lr, Cr, Lm are checked (9 sets).',
+  tolerances: 'Component tolerances; with corners: extremes the nominal set and every low/high combination of Lr, Cr, Lm are checked (9 sets); with corners: random, seeded Monte Carlo samples.',
   compare: 'Allowed FHA-versus-simulation differences, as fractions, per group or per metric by name; "off" reports a metric without flagging it.',
   simulation: 'Simulation control.',
 };

@@ -33,9 +33,9 @@ describe('demo.yaml', () => {
       frequency: 'regulate',
       corners: [],
     });
-    expect(d.tolerances).toEqual({ lr: 0.05, cr: 0.05, lm: 0.1, corners: 'nominal' });
+    expect(d.tolerances).toEqual({ lr: 0.05, cr: 0.05, lm: 0.1, turnsRatio: 0, corners: 'nominal', samples: 100, seed: 1, distribution: 'uniform' });
     expect(d.compare).toEqual({ vout: 0.03, fs: 0.05, gain: 0.03, currents: 0.1, voltages: 0.1 });
-    expect(d.simulation).toEqual({ accuracy: 'normal', settleTolerance: 0.001, maxCycles: 2000, zvsThreshold: 0.05 });
+    expect(d.simulation).toEqual({ accuracy: 'normal', settleTolerance: 0.001, maxCycles: 2000, zvsThreshold: 0.05, confirm: 20 });
     expect(d.devices).toEqual({});
   });
 });
@@ -83,7 +83,7 @@ describe('problem reports', () => {
     const out = lines(demo.replace('lr: 60 uH', 'lr: [60 uH]').replace('  turnsRatio: 8', '  turnsRatio: 8\n  integrated: "yes"').replace(/^tolerances:[\s\S]*?(?=compare:)/m, 'tolerances: 5%\n'));
     expect(out).toContain('d.yaml:9:7: tank.lr: expected an inductance > 0 H such as "60 uH", got a list');
     expect(out).toContain('d.yaml:13:15: tank.integrated: expected true or false, got "yes"');
-    expect(out).toContain('d.yaml:30:13: tolerances: expected a mapping with keys lr, cr, lm, corners, got "5%"');
+    expect(out).toContain('d.yaml:30:13: tolerances: expected a mapping with keys lr, cr, lm, turnsRatio, corners, samples, seed, distribution, got "5%"');
     expect(lines('- a\n- b\n')).toEqual(['d.yaml:1:1: expected a mapping of design sections, got a list']);
     expect(lines('')).toEqual(['d.yaml:1:1: the design file is empty']);
     expect(lines('just text')).toEqual(['d.yaml:1:1: expected a mapping of design sections, got "just text"']);

@@ -78,7 +78,20 @@ export interface Design {
     frequency: 'regulate' | number[];
     corners: ExplicitCorner[];
   };
-  tolerances: { lr: number; cr: number; lm: number; corners: 'extremes' | 'nominal' };
+  tolerances: {
+    lr: number;
+    cr: number;
+    lm: number;
+    corners: 'extremes' | 'nominal' | 'random';
+    /** Relative tolerance of the turns ratio; used by the random mode (extremes vary Lr, Cr, Lm only). @default 0 */
+    turnsRatio?: number;
+    /** Monte Carlo samples per operating point (corners: random). @default 100 */
+    samples?: number;
+    /** Seed of the random samples: the same seed gives the same samples everywhere. @default 1 */
+    seed?: number;
+    /** uniform over +-tolerance, or normal with the tolerance at 3 sigma, truncated there. @default 'uniform' */
+    distribution?: 'uniform' | 'normal';
+  };
   compare: {
     vout: number;
     fs: number;
@@ -102,6 +115,8 @@ export interface Design {
     maxCycles: number;
     /** ZVS: switch voltage at turn-on below this fraction of Vin counts as ZVS. @default 0.05 */
     zvsThreshold: number;
+    /** Corners of a random (Monte Carlo) run that the simulation confirms; the rest are screened only. @default 20 */
+    confirm?: number;
   };
   devices: { diodeModel?: DeviceModel; switchModel?: DeviceModel };
 }

@@ -66,7 +66,10 @@ export function readQuantity(r: Reader, e: Entry, path: string, spec: QuantitySp
 /** Read one of a fixed set of words, with "did you mean" for near misses. */
 export function readEnum<T extends string>(r: Reader, e: Entry, path: string, spec: EnumSpec): T | undefined {
   const text = r.text(e.node);
-  if (text !== undefined && spec.values.includes(text)) return text as T;
+  if (text !== undefined && spec.values.includes(text)) {
+    r.seen.set(path, { ...e.loc, text });
+    return text as T;
+  }
   const expected = spec.values.map((v) => `"${v}"`).join(' or ');
   const hint = text === undefined ? undefined : didYouMean(text, spec.values);
   r.expected(text === undefined ? 'type' : 'value', path, e.loc, expected, r.describe(e.node), hint && `did you mean "${hint}"?`);

@@ -23,7 +23,8 @@ export function createFileCache(dir: string): CornerCache {
     key(design: Design, corner: Corner, engineVersion: string, start: StartPoint): string {
       const deck = buildDeck({ design, corner, fs: start.fs, seed: start.seed, cycles: 24, saveCycles: 24 });
       const h = createHash('sha256');
-      h.update(JSON.stringify({ CACHE_FORMAT, TOOL_VERSION, engineVersion, deck: deck.text, sim: design.simulation, target: design.output.voltage, slope: start.slope, regulated: corner.fs === null }));
+      // the confirm budget picks which corners are simulated, it changes none of them
+      h.update(JSON.stringify({ CACHE_FORMAT, TOOL_VERSION, engineVersion, deck: deck.text, sim: { ...design.simulation, confirm: undefined }, target: design.output.voltage, slope: start.slope, regulated: corner.fs === null }));
       return h.digest('hex');
     },
     async get(key: string): Promise<CornerOutcome | undefined> {
