@@ -3,6 +3,7 @@ import { COMPARE_METRIC_GROUP, type CompareKey, type ComparedMetric } from '../d
 import type { FhaResult } from '../fha/types.js';
 import type { SimMetrics } from '../measure/types.js';
 import type { ComparisonRow, Divergence } from './types.js';
+import { applyCauses } from './causeRows.js';
 import { explainCurrent, explainFrequency, explainGain, explainStatus, zoneOf, type Zone } from './reasons.js';
 
 type Group = 'fs' | 'vout' | 'gain' | 'currents' | 'voltages';
@@ -31,8 +32,10 @@ export interface Comparison {
  * tolerance of its group, a verdict, and for each divergence a reason from the method reference.
  * Status metrics (ZVS, ZCS, region) diverge when they disagree. In fixed-frequency mode fs is equal
  * by construction and reported for information; in regulated mode Vout is the search target.
+ * With the ideal time-domain model's metrics (`ideal`; null where it does not apply) every row
+ * carries the ideal value and every divergence a `cause` (see applyCauses).
  */
-export function compareCorner(design: Design, fha: FhaResult, sim: SimMetrics, regulated: boolean): Comparison {
+export function compareCorner(design: Design, fha: FhaResult, sim: SimMetrics, regulated: boolean, ideal: SimMetrics | null = null): Comparison {
   const zone = zoneOf(sim.fs, fha.fr, fha.fp);
   const rows: ComparisonRow[] = [];
   for (const { metric, group } of COMPARED) {
@@ -68,9 +71,11 @@ export function compareCorner(design: Design, fha: FhaResult, sim: SimMetrics, r
       ...(diverged ? { reason: explainStatus(metric, zone, fha, sim) } : {}) });
   }
   rows.push({ metric: 'mode', fha: null, sim: sim.mode, error: null, tolerance: null, verdict: 'info' });
+  applyCauses(rows, sim, ideal, design.switches.deadTime);
   const divergences: Divergence[] = rows.filter((r) => r.verdict === 'diverged').map((r) => ({
     metric: r.metric, fha: r.fha, sim: r.sim, error: r.error, tolerance: r.tolerance, reason: r.reason ?? '',
     ...(r.unexpectedSign ? { unexpectedSign: true } : {}),
+    ...(r.ideal !== undefined ? { ideal: r.ideal } : {}), ...(r.cause ? { cause: r.cause } : {}),
   }));
   return { rows, divergences, zone };
 }

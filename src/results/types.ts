@@ -2,6 +2,7 @@ import type { FhaResult } from '../fha/types.js';
 import type { SimMetrics } from '../measure/types.js';
 import type { Corner } from '../corners/types.js';
 import type { ComparisonRow, Divergence } from '../compare/types.js';
+import type { IdealMetrics } from '../ideal/metrics.js';
 
 export type { ComparisonRow, Divergence } from '../compare/types.js';
 
@@ -32,6 +33,13 @@ export interface CornerResult {
   /** The corner's parameters (SI units; load in ohm, fs null when regulating). */
   inputs: Omit<Corner, 'id'>;
   fha: FhaResult;
+  /**
+   * The ideal time-domain model's metrics (same names and definitions as `sim`); null where the
+   * model does not apply, with the reason in `idealReason`. Absent in results written before it existed.
+   */
+  ideal?: IdealMetrics | null;
+  /** Why `ideal` is null. */
+  idealReason?: string;
   sim: SimSummary | null;
   comparison: ComparisonRow[];
   divergences: Divergence[];

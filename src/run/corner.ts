@@ -10,6 +10,7 @@ import { simulateSteady, WINDOW_CYCLES } from './steady.js';
 import { regulate } from './regulate.js';
 import { startPoint, type SeedMethod, type StartPoint } from './seed.js';
 import { excerpt } from '../report/excerpt.js';
+import { idealCorner, withIdeal, type IdealOutcome } from '../ideal/index.js';
 
 export interface CornerRunOptions {
   signal?: AbortSignal;
@@ -18,6 +19,8 @@ export interface CornerRunOptions {
   seed?: SeedMethod;
   /** A start already computed (the study computes it once for the cache key too). */
   start?: StartPoint;
+  /** The ideal model's outcome, computed once by the study (for the start and the comparison). */
+  ideal?: IdealOutcome;
 }
 
 export interface CornerOutcome {
@@ -36,7 +39,8 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
   opts: CornerRunOptions = {}): Promise<CornerOutcome> {
   const regulated = corner.fs === null;
   const steadyOpts = { tolerance: design.simulation.settleTolerance, maxCycles: design.simulation.maxCycles, signal: opts.signal, timeoutMs: opts.timeoutMs };
-  const start = opts.start ?? startPoint(design, corner, fha, opts.seed);
+  const ideal = opts.ideal ?? idealCorner(design, corner, fha);
+  const start = opts.start ?? startPoint(design, corner, fha, opts.seed, ideal);
   let steady;
   let simulations = 1;
   let cycles;
@@ -51,12 +55,12 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
     ({ cycles, runs } = steady);
   }
   if (!steady.ok || !steady.metrics) {
-    return { result: failed(corner, fha, steady.failure ?? { kind: 'engine', message: 'no result' }) };
+    return { result: withIdeal(failed(corner, fha, steady.failure ?? { kind: 'engine', message: 'no result' }), ideal) };
   }
   const sim: SimSummary = { ...steady.metrics, cycles, runs, simulations, settled: steady.settled, settleError: steady.settleError };
-  const cmp = compareCorner(design, fha, steady.metrics, regulated);
+  const cmp = compareCorner(design, fha, steady.metrics, regulated, ideal.ideal);
   const measured = { sim, comparison: cmp.rows, divergences: cmp.divergences };
-  const result: CornerResult = regulationMet ? simulated(corner, fha, measured)
-    : failed(corner, fha, { kind: 'regulation', message: `no switching frequency met ${design.output.voltage} V within 0.5 % in ${simulations} simulations (closest ${steady.metrics.vout.toPrecision(5)} V at ${(steady.fs / 1e3).toPrecision(5)} kHz)` }, measured);
+  const result: CornerResult = withIdeal(regulationMet ? simulated(corner, fha, measured)
+    : failed(corner, fha, { kind: 'regulation', message: `no switching frequency met ${design.output.voltage} V within 0.5 % in ${simulations} simulations (closest ${steady.metrics.vout.toPrecision(5)} V at ${(steady.fs / 1e3).toPrecision(5)} kHz)` }, measured), ideal);
   return { result, waveform: excerpt(corner.id, steady.waveforms as Waveforms, steady.windowStart, WINDOW_CYCLES) };
 }

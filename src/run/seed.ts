@@ -3,8 +3,9 @@ import type { Corner } from '../corners/types.js';
 import type { FhaResult } from '../fha/types.js';
 import type { DeckSeed } from '../netlist/types.js';
 import { fhaSeed } from '../netlist/fhaState.js';
-import { diodeFit, THERMAL_VOLTAGE } from '../netlist/devices.js';
-import { solveFrequency, solveSteadyState, tdParamsFromCorner, type TdParams, type SeedState } from '../tdmodel/index.js';
+import { solveFrequency, solveSteadyState, type SeedState } from '../tdmodel/index.js';
+import { modelParams } from '../ideal/params.js';
+import type { IdealOutcome } from '../ideal/metrics.js';
 import { fhaSlope } from './regulate.js';
 
 /**
@@ -22,18 +23,6 @@ export interface StartPoint {
   source: SeedMethod;
 }
 
-/**
- * Time-domain model parameters matching the deck. The model's diode is VF + rd i; the deck's fitted
- * diode is exponential, so VF is taken where that diode sits at this corner's load: its knee at the
- * output current (the average diode current while conducting).
- */
-export function modelParams(design: Design, corner: Corner, fs: number): TdParams {
-  const p = tdParamsFromCorner(design, corner, fs);
-  if (design.devices.diodeModel) return p;
-  const f = diodeFit(design);
-  return { ...p, vf: f.n * THERMAL_VOLTAGE * Math.log(corner.iout / f.is + 1), rd: f.rs };
-}
-
 function fromModel(s: SeedState): DeckSeed {
   return { vo: s.vo, ir: s.ir, im: s.im, vcr: s.vcr, va: s.vNode[0] ?? 0, vb: s.vNode[1] ?? 0 };
 }
@@ -46,9 +35,10 @@ const ZERO: DeckSeed = { vo: 0, ir: 0, im: 0, vcr: 0, va: 0, vb: 0 };
 /**
  * Start of a corner's simulation. Regulated corners start at the frequency the model predicts for
  * output.voltage (FHA's when the model finds none); the slope for the first search step comes
- * from the same model. Any model failure falls back to FHA, so a start always exists.
+ * from the same model. Any model failure falls back to FHA, so a start always exists. With the
+ * corner's ideal-model outcome (`ideal`, see ideal/metrics.ts) its solved state is reused.
  */
-export function startPoint(design: Design, corner: Corner, fha: FhaResult, method: SeedMethod = 'model'): StartPoint {
+export function startPoint(design: Design, corner: Corner, fha: FhaResult, method: SeedMethod = 'model', ideal?: IdealOutcome): StartPoint {
   const regulated = corner.fs === null;
   const fhaFs = regulated ? fha.fs ?? fha.fsZeroPhase : corner.fs!;
   const fallback = (): StartPoint => ({
@@ -62,14 +52,15 @@ export function startPoint(design: Design, corner: Corner, fha: FhaResult, metho
   // slow (seconds per corner at fs/fr = 1e-3) while FHA is a fine start there anyway.
   const fn = fhaFs / fha.fr;
   if (!(fn > MODEL_FN_RANGE[0] && fn < MODEL_FN_RANGE[1])) return fallback();
+  if (ideal && ideal.ideal === null) return fallback();
   try {
-    const p = modelParams(design, corner, fhaFs);
+    const p = ideal?.ideal ? ideal.params : modelParams(design, corner, fhaFs);
     if (!regulated) {
-      const r = solveSteadyState(p, corner.load);
+      const r = ideal?.ideal ? ideal.state : solveSteadyState(p, corner.load);
       const up = solveSteadyState({ ...p, fs: fhaFs * 1.005 }, corner.load, { guess: r.seed, voGuess: r.vo });
       return { fs: fhaFs, seed: fromModel(r.seed), slope: (up.vo - r.vo) / (fhaFs * 0.005), source: 'model' };
     }
-    const f = solveFrequency(p, corner.load, design.output.voltage, fhaFs);
+    const f = ideal?.ideal ? { fs: ideal.params.fs, state: ideal.state } : solveFrequency(p, corner.load, design.output.voltage, fhaFs);
     if (f.fs === null) return fallback();
     const up = solveSteadyState({ ...p, fs: f.fs * 1.005 }, corner.load, { guess: f.state.seed, voGuess: f.state.vo });
     const slope = (up.vo - f.state.vo) / (f.fs * 0.005);

@@ -9,6 +9,7 @@ import { envelope, failed as failedCorner, predicted, simulated } from '../resul
 import { simulateCorner, type CornerOutcome } from './corner.js';
 import { startPoint, type StartPoint } from './seed.js';
 import { mapPool } from '../engine/pool.js';
+import { idealCorner, withIdeal, type IdealOutcome } from '../ideal/index.js';
 
 export interface StudyProgress {
   done: number;
@@ -53,7 +54,10 @@ export interface StudyOutput {
 
 /** FHA-only results (no engine): every corner predicted. */
 export function predictStudy(design: Design, only?: string): Results {
-  const corners = filterCorners(expandCorners(design), only).map((c) => predicted(c, predictCorner(design, c)));
+  const corners = filterCorners(expandCorners(design), only).map((c) => {
+    const fha = predictCorner(design, c);
+    return withIdeal(predicted(c, fha), idealCorner(design, c, fha));
+  });
   return envelope(design, corners, { engine: null });
 }
 
@@ -72,15 +76,16 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
   await mapPool(corners, opts.jobs ?? 1, async (corner, i) => {
     if (opts.signal?.aborted) return;
     const fha = predictCorner(design, corner);
-    const start = startPoint(design, corner, fha);
+    const ideal = idealCorner(design, corner, fha);
+    const start = startPoint(design, corner, fha, 'model', ideal);
     const key = opts.cache?.key(design, corner, engineVersion, start);
     let out = key ? await opts.cache!.get(key) : undefined;
     if (out) {
       cached.add(i);
-      out = refreshComparison(design, corner, fha, out);
+      out = refreshComparison(design, corner, fha, ideal, out);
     } else {
-      out = await simulateCorner(opts.engine, design, corner, fha, { signal: opts.signal, timeoutMs: opts.timeoutMs, start })
-        .catch((e: unknown): CornerOutcome => ({ result: failedCorner(corner, fha, { kind: 'measurement', message: e instanceof Error ? e.message : String(e) }) }));
+      out = await simulateCorner(opts.engine, design, corner, fha, { signal: opts.signal, timeoutMs: opts.timeoutMs, start, ideal })
+        .catch((e: unknown): CornerOutcome => ({ result: withIdeal(failedCorner(corner, fha, { kind: 'measurement', message: e instanceof Error ? e.message : String(e) }), ideal) }));
       if (opts.signal?.aborted && out.result.status === 'failed') return; // interrupted, not a simulator failure
       if (key && out.result.failure?.kind !== 'timeout') await opts.cache!.set(key, out);
     }
@@ -106,9 +111,9 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
 }
 
 /** A cached simulation is compared again with the current tolerances (compare: may have changed). */
-function refreshComparison(design: Design, corner: Corner, fha: CornerResult['fha'], out: CornerOutcome): CornerOutcome {
-  const r = out.result;
+function refreshComparison(design: Design, corner: Corner, fha: CornerResult['fha'], ideal: IdealOutcome, out: CornerOutcome): CornerOutcome {
+  const r = withIdeal(out.result, ideal);
   if (!r.sim || r.status === 'failed') return { ...out, result: { ...r, fha } };
-  const cmp = compareCorner(design, fha, r.sim, corner.fs === null);
-  return { ...out, result: { ...r, ...simulated(corner, fha, { sim: r.sim, comparison: cmp.rows, divergences: cmp.divergences }) } };
+  const cmp = compareCorner(design, fha, r.sim, corner.fs === null, ideal.ideal);
+  return { ...out, result: withIdeal({ ...r, ...simulated(corner, fha, { sim: r.sim, comparison: cmp.rows, divergences: cmp.divergences }) }, ideal) };
 }

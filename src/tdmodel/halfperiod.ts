@@ -7,6 +7,9 @@ import type { RectMode } from './types.js';
 
 export type { Bridge };
 
+/** Called once per integration step [t, t + tau] (normalized) with the step's exact polynomial. */
+export type StepHook = (poly: Poly, t: number, tau: number, rect: RectMode, bridge: Bridge) => void;
+
 const W_SEC = [1, -1, 0, 0];
 const MAX_EVENTS = 400;
 const MAX_STEPS = 200_000;
@@ -23,6 +26,8 @@ export class HalfPeriod {
   private readonly guards = new Map<string, Guard[]>();
   /** Integral of |i_sec| over the last run (normalized), for the output current. */
   absSec = 0;
+  /** Optional observer of every step (dense output for sampled waveforms); null = none. */
+  onStep: StepHook | null = null;
 
   constructor(readonly c: Circuit) {}
 
@@ -71,6 +76,7 @@ export class HalfPeriod {
         const r = firstCrossing(this.g, poly.order, tau, zeroRun >= 2);
         if (r !== null && r < tau) { tau = r; hit = gd.id; }
       }
+      if (this.onStep) this.onStep(poly, t, tau, rect, bridge);
       if (stats) accumulate(stats, poly, tau, t, rect, bridge, this.g, this.openVm(bridge));
       else if (rect !== 'O') {
         project(poly, W_SEC, 0, this.g);
