@@ -38,18 +38,33 @@ function grid(head: string[], rows: string[][]): string {
 
 type Cell = { text: string; flagged: boolean };
 
-function triple(c: CornerResult, metric: string, scale = 1, digits = 4): Cell[] {
+function triple(c: CornerResult, metric: string, scale = 1, digits = 4, withIdeal = false): Cell[] {
   const r = c.comparison.find((x) => x.metric === metric);
-  if (!r) return [{ text: '-', flagged: false }, { text: '-', flagged: false }, { text: '', flagged: false }];
+  const ideal = withIdeal ? [{ text: idealText(c, metric, scale, digits), flagged: false }] : [];
+  if (!r) return [{ text: '-', flagged: false }, ...ideal, { text: '-', flagged: false }, { text: '', flagged: false }];
   const f = typeof r.fha === 'number' ? num(r.fha / scale, digits) : '-';
   const s = typeof r.sim === 'number' ? num(r.sim / scale, digits) : '-';
   const flagged = r.verdict === 'diverged';
   const e = r.error === null ? (flagged ? '!' : '') : `${r.error >= 0 ? '+' : ''}${(r.error * 100).toFixed(1)}%`;
-  return [{ text: f, flagged: false }, { text: s, flagged: false }, { text: `${e}${flagged ? '*' : ''}${r.unexpectedSign ? '?' : ''}`, flagged }];
+  return [{ text: f, flagged: false }, ...ideal, { text: s, flagged: false }, { text: `${e}${flagged ? '*' : ''}${r.unexpectedSign ? '?' : ''}`, flagged }];
 }
 
-function blank(): Cell[] {
-  return [{ text: '', flagged: false }, { text: '', flagged: false }, { text: '', flagged: false }];
+/** The ideal model's value of a metric: from the corner's `ideal` (also on FHA-only corners), '-' without one. */
+function idealText(c: CornerResult, metric: string, scale: number, digits: number): string {
+  const v = c.ideal ? (c.ideal as unknown as Record<string, unknown>)[metric] : undefined;
+  return typeof v === 'number' ? num(v / scale, digits) : '-';
+}
+
+/** Divergences by cause, e.g. '5a 1c': approximation (FHA's own error), circuit, unexplained. */
+function causeCounts(c: CornerResult): Cell {
+  const n = { a: 0, c: 0, u: 0 };
+  for (const d of c.divergences) n[d.cause === 'approximation' ? 'a' : d.cause === 'circuit' ? 'c' : 'u']++;
+  const text = (['a', 'c', 'u'] as const).filter((k) => n[k] > 0).map((k) => `${n[k]}${k}`).join(' ');
+  return { text: text || '-', flagged: n.u > 0 };
+}
+
+function blank(n = 3): Cell[] {
+  return Array.from({ length: n }, () => ({ text: '', flagged: false }));
 }
 
 function status(c: CornerResult, metric: 'zvs' | 'zcs'): Cell {
@@ -60,23 +75,26 @@ function status(c: CornerResult, metric: 'zvs' | 'zcs'): Cell {
 }
 
 /**
- * Side-by-side FHA | sim | error table of `tankcheck run`. A '*' marks a value beyond tolerance
- * and '?' an error whose sign contradicts FHA theory, so the table reads the same without colour.
+ * Side-by-side FHA | ideal | sim | error table of `tankcheck run` (the ideal time-domain model's
+ * column for the compared frequency or output and the tank RMS). A '*' marks a value beyond
+ * tolerance and '?' a gain, output or frequency where the simulation contradicts the ideal model,
+ * so the table reads the same without colour. 'causes' counts the divergences by cause: a =
+ * approximation (FHA's own error), c = circuit, u = unexplained.
  */
 export function renderRunTable(results: Results, opts: TableOptions = {}): string {
   const em = (cell: Cell) => (opts.color && cell.flagged ? `\u001b[1;7m${cell.text}\u001b[0m` : cell.text);
   // Regulated corners are compared on the frequency that meets the target, fixed ones on Vout.
   const showFs = results.corners.some((c) => c.inputs.fs === null);
   const showVout = results.corners.some((c) => c.inputs.fs !== null);
-  const head1 = ['', '', ...(showFs ? ['fs kHz', '', ''] : []), ...(showVout ? ['Vout V', '', ''] : []), 'gain M', '', '', 'Ir,rms A', '', '', 'ZVS', 'ZCS', ''];
-  const head2 = ['corner', 'status', ...(showFs ? ['FHA', 'sim', 'err'] : []), ...(showVout ? ['FHA', 'sim', 'err'] : []), 'FHA', 'sim', 'err', 'FHA', 'sim', 'err', 'F/S', 'F/S', 'mode'];
+  const head1 = ['', '', ...(showFs ? ['fs kHz', '', '', ''] : []), ...(showVout ? ['Vout V', '', '', ''] : []), 'gain M', '', '', 'Ir,rms A', '', '', '', 'ZVS', 'ZCS', '', ''];
+  const head2 = ['corner', 'status', ...(showFs ? ['FHA', 'ideal', 'sim', 'err'] : []), ...(showVout ? ['FHA', 'ideal', 'sim', 'err'] : []), 'FHA', 'sim', 'err', 'FHA', 'ideal', 'sim', 'err', 'F/S', 'F/S', 'causes', 'mode'];
   const rows: Cell[][] = results.corners.map((c) => [
     { text: c.id, flagged: false },
     { text: c.status, flagged: c.status === 'failed' || c.status === 'diverged' || c.status === 'not-settled' },
-    ...(showFs ? (c.inputs.fs === null ? triple(c, 'fs', 1e3, 4) : blank()) : []),
-    ...(showVout ? (c.inputs.fs !== null ? triple(c, 'vout', 1, 4) : blank()) : []),
-    ...triple(c, 'gain', 1, 4), ...triple(c, 'tankCurrentRms', 1, 3),
-    status(c, 'zvs'), status(c, 'zcs'), { text: c.sim?.mode ?? '-', flagged: false },
+    ...(showFs ? (c.inputs.fs === null ? triple(c, 'fs', 1e3, 4, true) : blank(4)) : []),
+    ...(showVout ? (c.inputs.fs !== null ? triple(c, 'vout', 1, 4, true) : blank(4)) : []),
+    ...triple(c, 'gain', 1, 4), ...triple(c, 'tankCurrentRms', 1, 3, true),
+    status(c, 'zvs'), status(c, 'zcs'), causeCounts(c), { text: c.sim?.mode ?? '-', flagged: false },
   ]);
   const last = head2.length - 1;
   const widths = head2.map((h, i) => Math.max(h.length, head1[i]!.length, ...rows.map((r) => r[i]!.text.length)));

@@ -102,8 +102,8 @@ describe.skipIf(!hasChromium)('HTML report in headless Chromium', () => {
     expect(vin).toEqual([...vin].sort((a, b) => a - b));
     await page.locator('#cmp thead button', { hasText: /^Vin V$/ }).click();
     expect((await column(1)).map(Number)).toEqual([...vin].sort((a, b) => b - a));
-    // fs error column (index 6) sorts by |error|: compare with the results themselves.
-    await page.locator('#cmp thead button[data-col="6"]').click();
+    // fs error column (index 7: corner, Vin, load, status, then fs FHA, ideal, sim, err) sorts by |error|: compare with the results themselves.
+    await page.locator('#cmp thead button[data-col="7"]').click();
     const ids = (await column(0)).map((s) => s.replace(/\s*≋$/, ''));
     const fsErr = (id: string) => Math.abs(results.corners.find((c) => c.id === id)!.comparison.find((r) => r.metric === 'fs')!.error!);
     expect(ids.map(fsErr)).toEqual(ids.map(fsErr).sort((a, b) => a - b));

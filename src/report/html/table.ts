@@ -1,4 +1,4 @@
-/** The side-by-side FHA | sim | error table, sortable and filterable by the page script. Pure. */
+/** The side-by-side FHA | ideal | sim | error table, sortable and filterable by the page script. Pure. */
 import type { ComparisonRow, CornerResult, Results } from '../../results/types.js';
 import { esc, rowAnchor, waveAnchor } from './escape.js';
 import { finite, num, pct, sig } from './format.js';
@@ -6,7 +6,7 @@ import { knownStatus, STATUS_ORDER, STATUS_STYLE, statusText } from './palette.j
 
 interface MetricColumn { key: string; label: string; unit: string; scale: number; digits: number }
 
-/** Numeric metrics shown as FHA | sim | error triples, in column order. */
+/** Numeric metrics shown as FHA | ideal | sim | error groups, in column order. */
 export const TABLE_METRICS: MetricColumn[] = [
   { key: 'fs', label: 'fs', unit: 'kHz', scale: 1e3, digits: 4 },
   { key: 'gain', label: 'gain M', unit: '', scale: 1, digits: 4 },
@@ -33,16 +33,18 @@ const TAIL = ['ZVS<br><small>FHA/sim</small>', 'ZCS<br><small>FHA/sim</small>', 
 
 const sortButton = (col: number, text: string) => `<button type="button" data-col="${col}">${text}</button>`;
 const FLAG = '<span class="mark" aria-label="beyond tolerance">▲</span>';
-const ODD = '<span class="mark" title="error sign contradicts FHA theory: suspect the model">?</span>';
+const ODD = '<span class="mark" title="the simulation contradicts the ideal time-domain model: suspect the design values, netlist or measurement">?</span>';
+/** Cells per metric group: FHA, ideal (time-domain model), sim, error. */
+const GROUP = ['FHA', 'ideal', 'sim', 'err'];
 
 function header(): string {
   const top = [
     ...LEAD.map((h, i) => `<th rowspan="2" scope="col">${sortButton(i, esc(h))}</th>`),
-    ...TABLE_METRICS.map((m) => `<th colspan="3" scope="colgroup" class="grp">${esc(m.label)}${m.unit ? ` <small>${esc(m.unit)}</small>` : ''}</th>`),
-    ...TAIL.map((h, i) => `<th rowspan="2" scope="col">${sortButton(LEAD.length + 3 * TABLE_METRICS.length + i, h)}</th>`),
+    ...TABLE_METRICS.map((m) => `<th colspan="${GROUP.length}" scope="colgroup" class="grp">${esc(m.label)}${m.unit ? ` <small>${esc(m.unit)}</small>` : ''}</th>`),
+    ...TAIL.map((h, i) => `<th rowspan="2" scope="col">${sortButton(LEAD.length + GROUP.length * TABLE_METRICS.length + i, h)}</th>`),
   ];
-  const sub = TABLE_METRICS.flatMap((_, k) => ['FHA', 'sim', 'err'].map((h, j) =>
-    `<th scope="col"${j === 0 ? ' class="grp"' : ''}>${sortButton(LEAD.length + 3 * k + j, h)}</th>`));
+  const sub = TABLE_METRICS.flatMap((_, k) => GROUP.map((h, j) =>
+    `<th scope="col"${j === 0 ? ' class="grp"' : ''}${h === 'ideal' ? ' title="ideal time-domain model"' : ''}>${sortButton(LEAD.length + GROUP.length * k + j, h)}</th>`));
   return `<thead><tr>${top.join('')}</tr><tr>${sub.join('')}</tr></thead>`;
 }
 
@@ -57,7 +59,8 @@ function triple(c: CornerResult, m: MetricColumn): string {
   const errCell = flagged
     ? `<td class="err flag"${abs}${tip}>${esc(err || 'n/a')}${FLAG}${r!.unexpectedSign ? ODD : ''}</td>`
     : `<td class="err${r?.verdict === 'info' ? ' info' : ''}"${abs}>${esc(err)}</td>`;
-  return `<td class="grp">${esc(sig(f, m.digits, m.scale))}</td><td>${esc(sig(s, m.digits, m.scale))}</td>${errCell}`;
+  const i = c.ideal ? (c.ideal as unknown as Record<string, unknown>)[m.key] : null;
+  return `<td class="grp">${esc(sig(f, m.digits, m.scale))}</td><td class="ideal">${esc(sig(i, m.digits, m.scale))}</td><td>${esc(sig(s, m.digits, m.scale))}</td>${errCell}`;
 }
 
 function show(v: ComparisonRow['fha'], metric: string): string {
@@ -78,7 +81,8 @@ function pair(c: CornerResult, metric: 'zvs' | 'zcs' | 'region'): string {
 
 function notes(c: CornerResult): string {
   const items = [
-    ...c.divergences.map((d) => `<li><b>${esc(METRIC_NAMES[d.metric] ?? d.metric)}</b>${d.error !== null ? ` ${esc(pct(d.error))}` : ''}: ${esc(d.reason || 'beyond tolerance')}${d.unexpectedSign ? ' <i>(sign contradicts FHA theory: suspect the model)</i>' : ''}</li>`),
+    ...c.divergences.map((d) => `<li><b>${esc(METRIC_NAMES[d.metric] ?? d.metric)}</b>${d.error !== null ? ` ${esc(pct(d.error))}` : ''}${d.cause ? ` [${esc(d.cause)}]` : ''}: ${esc(d.reason || 'beyond tolerance')}${d.unexpectedSign ? ' <i>(the simulation contradicts the ideal model: suspect the design values, netlist or measurement)</i>' : ''}</li>`),
+    ...(c.ideal === null && c.idealReason ? [`<li><b>no ideal column</b>: ${esc(c.idealReason)}</li>`] : []),
     ...(c.failure ? [`<li><b>${esc(c.failure.kind)}</b>: ${esc(c.failure.message)}${c.failure.detail ? `<pre>${esc(c.failure.detail)}</pre>` : ''}</li>`] : []),
     ...(c.sim && !c.sim.settled ? [`<li><b>not settled</b>: output still moving by ${esc(pct(c.sim.settleError, 2))} between windows</li>`] : []),
     ...(c.fha.warnings ?? []).map((w) => `<li><b>FHA note</b>: ${esc(w)}</li>`),
