@@ -106,7 +106,7 @@ export function memoryLines(m: MemoryCase): string[] {
     ...m.rows.map((r) => `| ${r.workers} | ${r.preMB.toFixed(0)} | ${r.peakMB.toFixed(0)} | ${r.perWorkerMB.toFixed(0)} | ${r.wallMs.toFixed(0)} |`),
     '', 'Each row runs in a fresh child process (bench/memory-child.ts), so no earlier run is in the baseline. ' +
       `Failed corners: ${m.rows.map((r) => r.failed).join(' / ')}.` +
-      (m.rows.length > 1 ? ` Study wall time, 2 workers / 1 worker: ${(m.rows[1]!.wallMs / m.rows[0]!.wallMs).toFixed(2)} (worker start included; this 2-vCPU machine shows little parallel speed-up, see engine-notes).` : ''),
+      (m.rows.length > 1 ? ` Study wall time, 2 workers / 1 worker: ${(m.rows[1]!.wallMs / m.rows[0]!.wallMs).toFixed(2)} (worker start included; on a 2-vCPU virtual machine two CPU-bound processes each run at about half speed, so little parallel speed-up shows).` : ''),
     ...(m.skipped ? ['', `2-worker run skipped: ${m.skipped}.`] : [])];
 }
 

@@ -68,7 +68,7 @@ export function renderResults(d: BenchData): string {
     '# tankcheck benchmark results', '',
     `Written by \`npm run bench\` (bench/run.ts) on ${d.date}, in one run of ${(d.totalS / 60).toFixed(1)} min. Every figure comes from ` +
       'that run; ratios compare measurements taken side by side in it. Repeat runs of the same job vary by about +-15 % on ' +
-      'this kind of machine (shared/engine-notes.md), so time ratios within about 20 % of a target are not decisive.', '',
+      'this kind of machine (measured during development: the same native run took 557-780 ms), so time ratios within about 20 % of a target are not decisive.', '',
     ...(d.changed.length ? [`**Source files changed while this bench ran** (it measured the code as loaded at its start): ${d.changed.join(', ')}. Run it again for figures of the current code.`, ''] : []),
     '## Machine', '',
     `- ${m.os}; ${m.cpu}, ${m.cpus} logical CPUs (availableParallelism ${m.parallelism}); memory ${m.totalMemMB} MB, ${m.freeMemMB} MB free at start; Node ${m.node}`,

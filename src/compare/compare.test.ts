@@ -40,7 +40,7 @@ describe('compareCorner', () => {
     expect(c.rows.find((r) => r.metric === 'tankCurrentRms')!.verdict).toBe('ok'); // 9 % < 10 %
   });
 
-  it('below resonance a higher simulated gain is the expected FHA limitation; a lower one is flagged as a model suspicion (method reference 5.3)', () => {
+  it('below resonance a higher simulated gain is the expected FHA limitation; a lower one is flagged as a model suspicion (docs/method.md#fha-limits)', () => {
     expect(zoneOf(fha.fs!, fha.fr, fha.fp)).toBe('below');
     const up = compareCorner(design, fha, sim({ gain: fha.gain! * 1.08 }), false).divergences.find((d) => d.metric === 'gain')!;
     expect(up.unexpectedSign).toBeUndefined();

@@ -4,7 +4,7 @@ import type { FhaResult } from '../fha/types.js';
 import type { SimMetrics } from '../measure/types.js';
 import type { ComparisonRow, Divergence } from './types.js';
 import { applyCauses } from './causeRows.js';
-import { explainCurrent, explainFrequency, explainGain, explainStatus, zoneOf, type Zone } from './reasons.js';
+import { doc, explainCurrent, explainFrequency, explainGain, explainStatus, zoneOf, type Zone } from './reasons.js';
 
 type Group = 'fs' | 'vout' | 'gain' | 'currents' | 'voltages';
 
@@ -29,7 +29,7 @@ export interface Comparison {
 
 /**
  * FHA against simulation for one corner: relative error (sim - fha)/|fha| per metric, the
- * tolerance of its group, a verdict, and for each divergence a reason from the method reference.
+ * tolerance of its group, a verdict, and for each divergence a short reason pointing at docs/method.md.
  * Status metrics (ZVS, ZCS, region) diverge when they disagree. In fixed-frequency mode fs is equal
  * by construction and reported for information; in regulated mode Vout is the search target.
  * With the ideal time-domain model's metrics (`ideal`; null where it does not apply) every row
@@ -47,7 +47,7 @@ export function compareCorner(design: Design, fha: FhaResult, sim: SimMetrics, r
     if (f === null || !Number.isFinite(s) || !Number.isFinite(f) || f === 0) {
       const diverged = f === null && metric === 'fs' && regulated && tolerance !== null;
       rows.push({ metric, fha: f, sim: s, error: null, tolerance, verdict: diverged ? 'diverged' : 'info',
-        ...(diverged ? { reason: 'FHA finds no ZVS-compatible frequency for this gain; simulation regulates here (FHA under-predicts gain below resonance, method reference 2.7, 5.3)' } : {}) });
+        ...(diverged ? { reason: `FHA finds no ZVS-compatible frequency for this gain; simulation regulates here, as FHA under-predicts gain below resonance (${doc('below-resonance')})` } : {}) });
       continue;
     }
     const error = (s - f) / Math.abs(f);
@@ -82,6 +82,6 @@ export function compareCorner(design: Design, fha: FhaResult, sim: SimMetrics, r
 
 function voltageReason(metric: string): string {
   return metric === 'crVoltagePeak'
-    ? 'the Cr swing follows the tank current peak, which FHA under-estimates away from resonance (method reference 3.2)'
-    : 'FHA takes the ideal clamp 2 Vo + VF (center-tapped) or Vo + VF; simulation includes the drops at the actual current (method reference 3.4)';
+    ? `the Cr swing follows the tank current peak, which FHA underestimates away from resonance (${doc('cr-and-diode-voltage')})`
+    : `FHA takes the ideal clamp 2 Vo + VF (center-tapped) or Vo + VF; simulation includes the drops at the actual current (${doc('cr-and-diode-voltage')})`;
 }

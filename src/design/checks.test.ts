@@ -52,7 +52,7 @@ describe('tank plausibility', () => {
 
 describe('dead time and switching frequency', () => {
   // fr = 1/(2 pi sqrt(60 uH * 42 nF)) = 100.25 kHz, fp = 1/(2 pi sqrt(360 uH * 42 nF)) = 40.93 kHz
-  // (method reference 2.3; values computed by hand from the demo tank).
+  // (docs/method.md#normalised; values computed by hand from the demo tank).
   it('refuses a dead time of half the shortest switching period or more', () => {
     const { errors } = run([['deadTime: 200 ns', 'deadTime: 2.5 us'], ['frequency: regulate', 'frequency: [100 kHz, 200 kHz]']]);
     expect(errors).toEqual([
@@ -64,7 +64,7 @@ describe('dead time and switching frequency', () => {
     expect(errors[0]).toContain('at 170 kHz (2.941 us, from operating.corners[0].frequency)');
   });
   it('warns when the dead time is over 10 % of the period, with the FHA fundamental factor', () => {
-    // sin(pi * 0.12) / (pi * 0.12) = 0.9765 (method reference 2.1)
+    // sin(pi * 0.12) / (pi * 0.12) = 0.9765 (docs/method.md#fha-inverter)
     const { warnings } = run([['deadTime: 200 ns', 'deadTime: 600 ns'], ['frequency: regulate', 'frequency: 200 kHz']]);
     expect(warnings).toContain(
       'd.yaml:14:13: switches.deadTime: dead time 600 ns is 12% of the period at 200 kHz; FHA ignores it (the inverter fundamental shrinks by sin(pi fs td)/(pi fs td) = 0.976)');
@@ -81,7 +81,7 @@ describe('dead time and switching frequency', () => {
 
 describe('turns ratio sanity', () => {
   it('warns when regulation needs a tank gain far from 1', () => {
-    // M = n (Vo + VF) / (Vin/2) = 0.8 * 24.5 / 170 = 0.1153 (method reference 2.4, half-bridge, center-tapped)
+    // M = n (Vo + VF) / (Vin/2) = 0.8 * 24.5 / 170 = 0.1153 (docs/method.md#gain, half-bridge, center-tapped)
     const { warnings } = run([['turnsRatio: 8', 'turnsRatio: 0.8']]);
     expect(warnings).toEqual([
       'd.yaml:12:15: tank.turnsRatio: regulating to 24 V at vin = 340 V (operating.vin[0]) needs a tank gain M = n (Vo + drops) / Vin_eff = 0.115, far from 1; check turnsRatio, output.voltage and topology.inverter',

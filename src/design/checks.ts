@@ -24,7 +24,7 @@ function fixedFrequencies(d: Core, r: Reader): { fs: number; path: string }[] {
 /**
  * Cross-field physics checks on a design whose fields each parsed and passed their own limits.
  * Errors where the file cannot be simulated meaningfully, warnings where it can but looks wrong.
- * Formulas: method-reference sections 2.1 (dead-time factor), 2.3 (fr, fp), 2.4 (Vo = M Vin_eff / n - V_drop), 2.6 (fs < fp is capacitive at every load).
+ * Formulas: docs/method.md#fha-inverter (dead-time factor), #normalised (fr, fp), #gain (Vo = M Vin_eff / n - V_drop), #zero-phase (fs < fp is capacitive at every load).
  */
 export function checkPhysics(d: Core, r: Reader): void {
   const at = (path: string): Loc => r.seen.get(path) ?? { line: 0, column: 0 };
@@ -87,7 +87,7 @@ export function checkPhysics(d: Core, r: Reader): void {
     }
   }
 
-  // Regulated corners: the tank gain needed for output.voltage, M = n V_rect / Vin_eff (method ref. 2.4, 2.8).
+  // Regulated corners: the tank gain needed for output.voltage, M = n V_rect / Vin_eff (docs/method.md#gain, #solving).
   const regulated = d.operating.frequency === 'regulate' ? d.operating.vin.map((v, i) => ({ vin: v, path: `operating.vin[${i}]` })) : [];
   d.operating.corners.forEach((c, i) => { if (c.frequency === null) regulated.push({ vin: c.vin, path: `operating.corners[${i}].vin` }); });
   const drops = d.topology.rectifier === 'full-bridge' ? 2 : 1;

@@ -20,7 +20,8 @@ describe('filterModelText', () => {
     expect(filterModelText('.MODEL D2 D(IS=1e-14\n+ N=1.05)\n', 'x').ok).toBe(true);
   });
 
-  // Why: engine-notes "Security": .control blocks run `shell` under native ngspice, even from an included file or after .end.
+  // Why: a .control block runs `shell` under native ngspice, even from an included file or after .end
+  // (tests/hardening/injection.engine.test.ts shows it with a marker file).
   it('refuses .control blocks and shell commands, naming file and line', () => {
     expect(rejected(`${DIODE}.control\nshell touch /tmp/x\n.endc\n`)).toEqual([
       'm.lib:3:1: devices.diodeModel.file: ".control" is not allowed in a model file: a .control block runs simulator commands',

@@ -4,8 +4,9 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { createEngine } from './index.js';
 import type { SimResult } from './types.js';
 import { locate, valueAt } from '../measure/window.js';
+import { sharedFile } from '../../tests/support/shared.js';
 
-const deckFile = (name: string) => readFileSync(new URL(`../../shared/raw/${name}`, import.meta.url), 'latin1');
+const deckFile = (name: string) => readFileSync(sharedFile('raw', name), 'latin1');
 const engines = [createEngine('ngspice'), createEngine('wasm')];
 afterAll(() => Promise.all(engines.map((e) => e.close())));
 const runBoth = (deck: string) => Promise.all(engines.map((e) => e.run({ id: e.name, deck, timeoutMs: 20_000 })));

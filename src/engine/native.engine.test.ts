@@ -6,8 +6,9 @@ import { execa } from 'execa';
 import { afterAll, describe, expect, it } from 'vitest';
 import { EngineUnavailableError } from './errors.js';
 import { createNgspiceEngine } from './native.js';
+import { sharedFile } from '../../tests/support/shared.js';
 
-const deckFile = (name: string) => readFileSync(new URL(`../../shared/raw/${name}`, import.meta.url), 'latin1');
+const deckFile = (name: string) => readFileSync(sharedFile('raw', name), 'latin1');
 const scratch = mkdtempSync(join(tmpdir(), 'tankcheck-native-test-'));
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 const engine = createNgspiceEngine({ tmpRoot: scratch });

@@ -58,7 +58,7 @@ export function defaultJobs(engineName: 'wasm' | 'ngspice', host: HostInfo = {})
   return jobs;
 }
 
-/** Memory one wasm worker may take (RSS 0.4-0.5 GB, engine notes section 1), bytes. */
+/** Memory one wasm worker may take (RSS 0.4-0.5 GB per eecircuit-engine 1.8 instance after a few runs, measured during development; bench/RESULTS.md section 6 has the current figure), bytes. */
 export const WASM_WORKER_BYTES = 0.5 * 1024 ** 3;
 
 /**

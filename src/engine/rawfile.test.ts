@@ -1,8 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { normaliseVectorName, parseRaw, RawFormatError } from './rawfile.js';
+import { sharedFile } from '../../tests/support/shared.js';
 
-const fixture = (name: string) => readFileSync(new URL(`../../shared/raw/${name}`, import.meta.url));
+const fixture = (name: string) => readFileSync(sharedFile('raw', name));
 
 describe('parseRaw on a transient plot (ngspice-39, rc-tran.cir)', () => {
   const [plot] = parseRaw(fixture('rc-tran.ngspice39.raw'));

@@ -2,8 +2,9 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseRaw } from './rawfile.js';
 import { assembleResult, implausibleVectors, plotVectors } from './result.js';
+import { sharedFile } from '../../tests/support/shared.js';
 
-const fixture = (name: string) => readFileSync(new URL(`../../shared/raw/${name}`, import.meta.url));
+const fixture = (name: string) => readFileSync(sharedFile('raw', name));
 
 describe('plotVectors', () => {
   it('puts the scale first, sorts the rest, and splits complex vectors into real()/imag()', () => {

@@ -1,8 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { finishRun } from './wasm-protocol.js';
+import { sharedFile } from '../../tests/support/shared.js';
 
-const raw = (name: string) => new Uint8Array(readFileSync(new URL(`../../shared/raw/${name}`, import.meta.url)));
+const raw = (name: string) => new Uint8Array(readFileSync(sharedFile('raw', name)));
 const job = { id: 'j', deck: 'x\n.end\n', timeoutMs: 1000 };
 const done = (over: object) => ({ type: 'done' as const, jobId: 1, lines: [], nonceOk: true, constants: false, ...over });
 

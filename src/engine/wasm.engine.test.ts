@@ -6,8 +6,9 @@ import { fileURLToPath } from 'node:url';
 import { execa } from 'execa';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createWasmEngine } from './wasm.js';
+import { sharedFile } from '../../tests/support/shared.js';
 
-const deckFile = (name: string) => readFileSync(new URL(`../../shared/raw/${name}`, import.meta.url), 'latin1');
+const deckFile = (name: string) => readFileSync(sharedFile('raw', name), 'latin1');
 const engine = createWasmEngine({ workers: 1 });
 afterAll(() => engine.close());
 

@@ -1,9 +1,9 @@
 /**
- * Closed-form FHA relations of the LLC tank in normalised form (method reference sections 2.4-2.7).
+ * Closed-form FHA relations of the LLC tank in normalised form (docs/method.md#gain).
  * fn = fs/fr, q = Zr/Rac, ln = Lm/Lr. All functions are pure and dimensionless.
  */
 
-/** Tank gain M = |Zp / (Zs + Zp)| (form A of the method reference). */
+/** Tank gain M = |Zp / (Zs + Zp)| (the first of the two equivalent forms; the tests check it against the second). */
 export function fhaGain(fn: number, q: number, ln: number): number {
   const a = 1 + (1 - 1 / (fn * fn)) / ln;
   const b = q * (fn - 1 / fn);

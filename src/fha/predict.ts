@@ -23,7 +23,7 @@ export function tankConstants(c: Pick<Corner, 'lr' | 'cr' | 'lm'>) {
   return { fr, fp, zr: Math.sqrt(c.lr / c.cr), ln: c.lm / c.lr };
 }
 
-/** Rac = 8 n^2 V_rect / (pi^2 Io) (method reference 2.2, with the diode drop in V_rect). */
+/** Rac = 8 n^2 V_rect / (pi^2 Io) (docs/method.md#fha-rectifier, with the diode drop in V_rect). */
 export function acResistance(n: number, vout: number, drop: number, load: number): number {
   return (8 * n * n * (vout + drop) * load) / (Math.PI ** 2 * vout);
 }
@@ -49,7 +49,7 @@ function solveFixedVout(fn: number, zr: number, ln: number, n: number, vinEff: n
 }
 
 /**
- * FHA prediction for one corner (method reference sections 2-4). Fixed frequency: Vo follows
+ * FHA prediction for one corner (docs/method.md#fha). Fixed frequency: Vo follows
  * from the gain. Regulated (corner.fs null): fs is solved for output.voltage on the branch above
  * the zero-phase boundary; a target above M(fn_zp) is unreachable with ZVS and yields nulls.
  */
@@ -111,7 +111,7 @@ export function predictCorner(design: Design, corner: Corner): FhaResult {
   const region = fn >= fnZp ? 'inductive' : 'capacitive';
   const vf = design.rectifier.forwardVoltage;
   if (region === 'inductive' && fn > 1 && design.tank.lr * iOff ** 2 < 2 * design.switches.coss * corner.vin ** 2) {
-    warnings.push('above resonance only Lr drives the dead-time transition: its energy is below what the switch capacitances need (method reference 4.1, condition 3)');
+    warnings.push('above resonance only Lr drives the dead-time transition: its energy is below what the switch capacitances need (docs/method.md#zvs)');
   }
   return result(common, {
     fs, fn, gain, vout, iout, region, phase,

@@ -4,17 +4,17 @@ import { aboveResonanceSet, resonantSet, sineSet } from './models.test-support.j
 import { synthesize } from './synthetic.test-support.js';
 import type { SimMetrics, Waveforms } from './types.js';
 
-// Tank of method reference 6.3 (HB, CT, ideal diodes): Vin 400 V, Lr 50 uH, Cr 50 nF, Lm 250 uH, n 4, RL 4 ohm.
+// Tank of shared/checks/worked-example.json (HB, CT, ideal diodes): Vin 400 V, Lr 50 uH, Cr 50 nF, Lm 250 uH, n 4, RL 4 ohm.
 const tank = { vin: 400, lr: 50e-6, cr: 50e-9, lm: 250e-6, n: 4, load: 4 };
 const fr = 1 / (2 * Math.PI * Math.sqrt(tank.lr * tank.cr));
 const zr = Math.sqrt(tank.lr / tank.cr);
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 const win = (w: Waveforms, cycles = 5) => ({ tStart: 2 / w.fs, cycles });
 
-describe('ideal converter at fs = fr (method reference 3.1-3.4, [D] derived from circuit laws)', () => {
+describe('ideal converter at fs = fr (docs/method.md#stresses, derived from circuit laws)', () => {
   const w = resonantSet(tank);
   const m = measure(w, win(w));
-  const vo = 200 / tank.n; // M = 1 at fn = 1 for every load (method reference 2.5): Vo = Vin_eff / n
+  const vo = 200 / tank.n; // M = 1 at fn = 1 for every load (docs/method.md#gain-limits): Vo = Vin_eff / n
   const io = vo / tank.load;
   const im = (tank.n * vo) / (4 * fr * tank.lm); // Im,pk (square voltage), 3.1
   const irRms = Math.sqrt(((Math.PI * io) / (2 * Math.SQRT2 * tank.n)) ** 2 + im ** 2 / 2); // 3.1 exact at fr
@@ -34,17 +34,17 @@ describe('ideal converter at fs = fr (method reference 3.1-3.4, [D] derived from
     expect(rel(m.magnetizingCurrentPeak, im)).toBeLessThan(1e-9);
   });
 
-  it('switch RMS = Ir,rms / sqrt(2) and turn-off current = Im,pk (method reference 3.3)', () => {
+  it('switch RMS = Ir,rms / sqrt(2) and turn-off current = Im,pk (docs/method.md#switches)', () => {
     expect(rel(m.switchCurrentRms, irRms / Math.SQRT2)).toBeLessThan(1e-3); // step at the half-period sampled once
     expect(rel(m.switchTurnOffCurrent, im)).toBeLessThan(1e-6);
   });
 
-  it('Cr voltage = Vin/2 +- Ir,pk Zr (method reference 3.2)', () => {
+  it('Cr voltage = Vin/2 +- Ir,pk Zr (docs/method.md#cr-voltage)', () => {
     expect(rel(m.crVoltagePeak, 200 + irPk * zr)).toBeLessThan(1e-6);
     expect(rel(m.crVoltageMin, 200 - irPk * zr)).toBeLessThan(1e-5);
   });
 
-  it('diode average Io/2 and reverse voltage 2 Vo for CT (method reference 3.4)', () => {
+  it('diode average Io/2 and reverse voltage 2 Vo for CT (docs/method.md#diodes)', () => {
     expect(rel(m.diodeCurrentAvg, io / 2)).toBeLessThan(1e-5);
     expect(m.diodeReverseVoltage).toBeCloseTo(2 * vo, 9);
     expect(m.diodeReverseCurrent).toBe(0);
@@ -57,7 +57,7 @@ describe('ideal converter at fs = fr (method reference 3.1-3.4, [D] derived from
   });
 });
 
-describe('Lm -> infinity: half-sine secondary (method reference 3.4, 3.5; [M] Erickson & Maksimovic 2nd ed. ch. 19)', () => {
+describe('Lm -> infinity: half-sine secondary (docs/method.md#diodes, #output-ripple; Erickson & Maksimovic 2nd ed. ch. 19, from memory)', () => {
   const w = resonantSet({ ...tank, lm: 1e3 });
   const m = measure(w, win(w));
   const io = 50 / tank.load;
@@ -72,7 +72,7 @@ describe('Lm -> infinity: half-sine secondary (method reference 3.4, 3.5; [M] Er
 describe('full-bridge inverter and rectifier', () => {
   const w = resonantSet(tank, { inverter: 'full-bridge', rectifier: 'full-bridge' });
   const m = measure(w, win(w));
-  it('Vin_eff = Vin: Vo = Vin / n at gain 1; FBR diode average Io/2, reverse Vo (method reference 2.4, 3.4)', () => {
+  it('Vin_eff = Vin: Vo = Vin / n at gain 1; FBR diode average Io/2, reverse Vo (docs/method.md#gain, #diodes)', () => {
     expect(m.gain).toBeCloseTo(1, 9);
     expect(m.vout).toBeCloseTo(100, 9);
     expect(rel(m.diodeCurrentAvg, 100 / tank.load / 2)).toBeLessThan(1e-5);

@@ -48,7 +48,7 @@ describe('mode of a window', () => {
     return modeOfWindow(w, span, spanPeak(span, w.secondaryCurrentReferred), 0.02, 0.02);
   };
 
-  it('fs = fr: P for the whole half period (method reference 3.1)', () => {
+  it('fs = fr: P for the whole half period (docs/method.md#tank-currents)', () => {
     expect(mode(resonantSet({ vin: 400, lr: 50e-6, cr: 50e-9, lm: 250e-6, n: 4, load: 4 }))).toBe('P');
   });
 

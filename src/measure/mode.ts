@@ -12,7 +12,7 @@ export interface StateRun {
 
 /**
  * Rectifier state runs of i_sec over [a, b]: P while i_sec > eps, N while i_sec < -eps, O otherwise
- * (method reference 4.3). Boundaries are the interpolated crossings of +-eps, exact for PWL data.
+ * (docs/method.md#zvs). Boundaries are the interpolated crossings of +-eps, exact for PWL data.
  */
 export function stateRuns(t: Float64Array, isec: Float64Array, a: number, b: number, eps: number): StateRun[] {
   const runs: StateRun[] = [];

@@ -1,5 +1,5 @@
 /**
- * TEST-ONLY model builders for synthesize(): the ideal converter at fs = fr (method reference 3.1) and
+ * TEST-ONLY model builders for synthesize(): the ideal converter at fs = fr (docs/method.md#tank-currents) and
  * invented below/above-resonance and pure-sine sets whose answers follow from their construction.
  */
 import type { Inverter, Rectifier } from '../design/types.js';
@@ -38,7 +38,7 @@ export interface TankSpec {
 }
 
 /**
- * Ideal LLC at fs = fr (method reference 3.1): Vo = Vin_eff / n (gain 1), Lm clamped to +n Vo for the
+ * Ideal LLC at fs = fr (docs/method.md#tank-currents): Vo = Vin_eff / n (gain 1), Lm clamped to +n Vo for the
  * whole half period, so i_m is a triangle of peak Im = n Vo / (4 fs Lm) and i_r = A sin(wr tau - theta)
  * with A cos(theta) = pi Io / (2n), A sin(theta) = Im. Cr voltage ac part -A Zr cos(wr tau - theta).
  */

@@ -1,4 +1,4 @@
-/** Thresholds of the waveform measurements (method reference 4.3). All are plain ratios. */
+/** Thresholds of the waveform measurements (docs/method.md#zvs). All are plain ratios. */
 export interface MeasureOptions {
   /**
    * ZVS: v_ds at a turn-on edge <= zvsThreshold * Vin is ZVS, >= (1 - zvsThreshold) * Vin is hard,

@@ -9,7 +9,7 @@ const ws = 2 * Math.PI * fs;
 const win = { tStart: 2 / fs, cycles: 4 };
 
 describe('classifyZvs', () => {
-  it('splits at a and 1 - a (method reference 4.3)', () => {
+  it('splits at a and 1 - a (docs/method.md#zvs)', () => {
     expect([0, 0.05, 0.0501, 0.5, 0.9499, 0.95, 1.2].map((x) => classifyZvs(x, 0.05))).toEqual([
       'zvs', 'zvs', 'partial', 'partial', 'partial', 'hard', 'hard',
     ]);
@@ -85,7 +85,7 @@ describe('region and turn-off current from the tank-current sign', () => {
   });
 
   it('turn-off current equals the FHA form Ir,pk sin(phi) for a sinusoidal tank current', () => {
-    // Method reference 3.3: I_off = Ir,pk sin(phi); exact when the current is a sinusoid lagging by
+    // docs/method.md#switches: I_off = Ir,pk sin(phi); exact when the current is a sinusoid lagging by
     // phi and the gate falls at the bridge flip (zero dead time).
     const w = sineSet(fs, A, -0.3, { deadTime: 0 });
     expect(turnOffCurrent(w, windowSpan(w, win))).toBeCloseTo(A * Math.sin(0.3), 6);

@@ -2,7 +2,7 @@ import type { Waveforms, ZvsState } from './types.js';
 import { bridgeSign, findGateEdges, within, type GateEdges } from './edges.js';
 import { valueAt, type GridPoint, type Span } from './window.js';
 
-/** What one gate turn-on edge in the window looked like (method reference 4.3). */
+/** What one gate turn-on edge in the window looked like (docs/method.md#zvs). */
 export interface TurnOnEdge {
   /** Index into Waveforms.switches. */
   switchIndex: number;
@@ -83,7 +83,7 @@ export function summarizeZvs(edges: TurnOnEdge[], threshold: number) {
 }
 
 /**
- * Region from the current sign at turn-on (method reference 4.3, ZVS by current sign), worst case:
+ * Region from the current sign at turn-on (docs/method.md#zvs, ZVS by current sign), worst case:
  * 'capacitive' as soon as one turn-on edge of any switch sees current in the wrong direction
  * (diodeCurrent < 0), else 'inductive'. Judged at the gate edge, so a dead time long enough for the
  * tank current to reverse before the edge also reads capacitive, which is the switch's real condition.

@@ -9,9 +9,9 @@ import type { Waveforms } from './types.js';
 
 const level = (w: Waveforms) => 0.01 * Math.max(...w.diodes.map((d) => Math.max(...d.current)));
 
-describe('rectifier ZCS per conduction interval (method reference 4.2, 4.3)', () => {
+describe('rectifier ZCS per conduction interval (docs/method.md#zcs, #zvs)', () => {
   it('fs = fr: the diode current reaches zero exactly at the edge -> ZCS', () => {
-    // Method reference 4.2: at fs = fr the diode current reaches zero at the primary edge.
+    // docs/method.md#zcs: at fs = fr the diode current reaches zero at the primary edge.
     const w = resonantSet({ vin: 400, lr: 50e-6, cr: 50e-9, lm: 250e-6, n: 4, load: 4 });
     const iv = zcsIntervals(w, windowSpan(w, { tStart: 2 / w.fs, cycles: 5 }), level(w));
     expect(iv).toHaveLength(10); // one per diode per cycle

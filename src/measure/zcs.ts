@@ -20,7 +20,7 @@ export interface ConductionInterval {
 }
 
 /**
- * Rectifier commutation per conduction interval (method reference 4.2, 4.3). An interval is a run of
+ * Rectifier commutation per conduction interval (docs/method.md#zcs, #zvs). An interval is a run of
  * i_D > level (A; measure() uses conductionThreshold * the largest diode current in the window;
  * level <= 0 means no conduction and returns no intervals); intervals
  * whose end lies in (start.t, end.t] are kept (whole-cycle windows give one per diode per cycle),

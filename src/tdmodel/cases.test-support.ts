@@ -1,5 +1,5 @@
 /**
- * TEST-ONLY parameter sets. The default is the worked example of method reference 6.3
+ * TEST-ONLY parameter sets. The default is the worked example of shared/checks/worked-example.json
  * (HB, CT, 400 V, Lr 50 uH, Cr 50 nF, Lm 250 uH, n = 4) with ideal parts (no dead time,
  * no Coss, ideal diodes and switches); every test states what it changes.
  */
@@ -15,7 +15,7 @@ export const params = (over: Partial<TdParams> = {}): TdParams => ({ ...EXAMPLE,
 
 export const resonance = (p: TdParams) => 1 / (2 * Math.PI * Math.sqrt(p.lr * p.cr));
 
-/** Load resistance giving the FHA quality factor q: Q = Zr / Rac, Rac = 8 n^2 RL / pi^2 (method reference 2.2-2.3). */
+/** Load resistance giving the FHA quality factor q: Q = Zr / Rac, Rac = 8 n^2 RL / pi^2 (docs/method.md#fha-rectifier). */
 export const loadForQ = (p: TdParams, q: number) => (Math.PI ** 2 * Math.sqrt(p.lr / p.cr)) / (8 * p.n * p.n * q);
 
 export const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);

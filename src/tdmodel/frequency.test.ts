@@ -8,7 +8,7 @@ import type { TdParams } from './types.js';
 const p = params({ coss: 300e-12, deadTime: 250e-9 });
 const zr = Math.sqrt(p.lr / p.cr);
 
-/** FHA frequency for an output, ideal diodes (method reference 2.8). */
+/** FHA frequency for an output, ideal diodes (docs/method.md#solving). */
 function fhaFs(q: TdParams, rl: number, vo: number): number {
   const qq = (Math.PI ** 2 * zr) / (8 * q.n ** 2 * rl);
   const ln = q.lm / q.lr;
@@ -27,9 +27,9 @@ describe('solveFrequency', () => {
     });
   }
 
-  // Method reference 5.3 take-aways: below fr the real gain is higher than FHA, above fr lower,
+  // docs/method.md#fha-limits take-aways: below fr the real gain is higher than FHA, above fr lower,
   // so the time-domain frequency for a gain above 1 lies above the FHA one and vice versa.
-  it('gain above 1: time-domain fs above FHA fs; gain below 1: below (method reference 5.3)', () => {
+  it('gain above 1: time-domain fs above FHA fs; gain below 1: below (docs/method.md#fha-limits)', () => {
     const ideal = params();
     const up = solveFrequency(ideal, 4, 56, fhaFs(ideal, 4, 56));
     const down = solveFrequency(ideal, 4, 42, fhaFs(ideal, 4, 42));
@@ -39,7 +39,7 @@ describe('solveFrequency', () => {
     expect(down.fs!).toBeGreaterThan(resonance(ideal));
   });
 
-  it('at M = 1 with ideal parts the answer is fr for any load (method reference 2.5, 3.1)', () => {
+  it('at M = 1 with ideal parts the answer is fr for any load (docs/method.md#gain-limits, #tank-currents)', () => {
     const ideal = params();
     for (const rl of [2, 5]) {
       const r = solveFrequency(ideal, rl, 50, 95e3);
@@ -61,7 +61,7 @@ describe('solveFrequency', () => {
     if (r.fs === null) expect(r.reason).toMatch(/above the highest output on the inductive branch/);
   });
 
-  it('light load: a target below the output at fsMax is unreachable (method reference 2.5, Ln/(Ln+1))', () => {
+  it('light load: a target below the output at fsMax is unreachable (docs/method.md#gain-limits, Ln/(Ln+1))', () => {
     // FHA no-load floor Ln/(Ln+1) = 0.833 -> 41.7 V; ask for 30 V at 400 ohm.
     expect(fhaGain(50, 0, 5)).toBeGreaterThan(0.83);
     const r = solveFrequency(p, 400, 30, 150e3);

@@ -11,7 +11,7 @@ const add = (a: C, b: C): C => [a[0] + b[0], a[1] + b[1]];
 /**
  * Starting state for the shooting, normalized (i_r, i_m, v_cr - V_dc) at t = 0, from first-
  * harmonic phasors: the bridge fundamental (4/pi) Vin_eff sin(ws (t - td/2)) drives Zs + (j ws Lm
- * || Rac), with Rac chosen so that the FHA gain matches the held output (method reference 2.4);
+ * || Rac), with Rac chosen so that the FHA gain matches the held output (docs/method.md#gain);
  * unreachable gains fall back to no load, fn = 1 (gain independent of load) to Q = 0.3.
  */
 export function phasorGuess(c: Circuit): number[] {

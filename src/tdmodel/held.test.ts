@@ -4,11 +4,11 @@ import { solveSteadyState } from './periodic.js';
 import { modeLabel } from './result.js';
 import { loadForQ, params, rel, resonance } from './cases.test-support.js';
 
-// Ideal converter at fs = fr (method reference 2.5 and 3.1, [D]): during the whole half period
+// Ideal converter at fs = fr (docs/method.md#gain-limits, #tank-currents; derived from the circuit laws): during the whole half period
 // Lr-Cr sees a constant forcing voltage, the tank current is one half sine at fr, the gain is 1,
 // Ir,rms = sqrt((pi Io / (2 sqrt 2 n))^2 + Im,pk^2 / 2) with Im,pk = n Vo / (4 fs Lm) and the
-// turn-off current equals Im,pk (3.3, [D]).
-describe('ideal converter at fs = fr (method reference 2.5, 3.1, 3.3)', () => {
+// turn-off current equals Im,pk (docs/method.md#switches; derived).
+describe('ideal converter at fs = fr (docs/method.md#gain-limits, #tank-currents, #switches)', () => {
   for (const inverter of ['half-bridge', 'full-bridge'] as const) {
     for (const rl of [1, 2, 4, 10]) {
       it(`${inverter}, RL = ${rl} ohm: gain 1, mode P, exact Ir,rms, Ir,pk and I_off`, () => {
@@ -26,7 +26,7 @@ describe('ideal converter at fs = fr (method reference 2.5, 3.1, 3.3)', () => {
     }
   }
 
-  // Limit of the statement above ([D], derived here): with i_sec(0) = 0 the secondary current
+  // Limit of the statement above (derived here): with i_sec(0) = 0 the secondary current
   // starts rising only if its slope w pi Io / (2n) - n Vo / Lm is >= 0, i.e. RL <= pi^2 fr Lm / n^2
   // (Q >= pi / (4 Ln)). Lighter loads leave an O interval at each end (mode OPO, gain above 1).
   it('continuous conduction at fr ends at RL = pi^2 fr Lm / n^2 (here 15.52 ohm)', () => {
@@ -50,7 +50,7 @@ describe('ideal converter at fs = fr (method reference 2.5, 3.1, 3.3)', () => {
 });
 
 describe('held output', () => {
-  it('Io_rect falls as the held output rises (source of the load solve), method reference 6.3 tank', () => {
+  it('Io_rect falls as the held output rises (source of the load solve), shared/checks/worked-example.json tank', () => {
     const io = [52.5, 53, 53.5].map((vo) => solveHeldOutput(params(), vo).ioRect);
     expect(io[0]).toBeGreaterThan(io[1]);
     expect(io[1]).toBeGreaterThan(io[2]);
@@ -80,7 +80,7 @@ describe('held output', () => {
 });
 
 describe('modeLabel', () => {
-  it('drops short intervals and merges equal neighbours (method reference 4.3 labelling)', () => {
+  it('drops short intervals and merges equal neighbours (docs/method.md#zvs labelling)', () => {
     const seg = (mode: 'P' | 'N' | 'O', start: number, end: number) => ({ mode, start, end });
     const s = [seg('P', 0, 4e-6), seg('O', 4e-6, 4.01e-6), seg('P', 4.01e-6, 5e-6), seg('O', 5e-6, 5.5e-6)];
     expect(modeLabel(s, 1e-7)).toBe('PO');

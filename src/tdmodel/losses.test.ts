@@ -41,15 +41,15 @@ describe('energy balance', () => {
     expect(rel(fb.power.switchConduction, 4 * lossy.rdsOn! * fb.switchCurrentRms ** 2)).toBeLessThan(1e-9);
   });
 
-  it('without dead time each switch carries Ir,rms / sqrt 2 (method reference 3.3)', () => {
+  it('without dead time each switch carries Ir,rms / sqrt 2 (docs/method.md#switches)', () => {
     const r = solveSteadyState(params({ fs: 75e3 }), 3);
     expect(rel(r.switchCurrentRms, r.tankCurrentRms / Math.SQRT2)).toBeLessThan(1e-9);
   });
 });
 
-// Method reference 3.4 and 3.5: at fs = fr with Lm >> Lr the secondary current is a train of
+// docs/method.md#diodes, #output-ripple: at fs = fr with Lm >> Lr the secondary current is a train of
 // half sines of peak (pi/2) Io: diode rms (pi/4) Io, average Io/2, output ripple 0.483426 Io.
-describe('rectifier stresses in the half-sine limit (method reference 3.4, 3.5)', () => {
+describe('rectifier stresses in the half-sine limit (docs/method.md#diodes, #output-ripple)', () => {
   it('Ln = 2000 at fr: diode peak, rms, average and capacitor ripple', () => {
     const p = params({ lm: 2000 * 50e-6 });
     const r = solveSteadyState({ ...p, fs: resonance(p) }, 4);
@@ -60,7 +60,7 @@ describe('rectifier stresses in the half-sine limit (method reference 3.4, 3.5)'
   });
 });
 
-describe('dead time and ZVS (method reference 4.1)', () => {
+describe('dead time and ZVS (docs/method.md#zvs)', () => {
   it('ample turn-off current: ZVS, node swing time = 2 Coss Vin / I_off (charge, condition 2)', () => {
     const r = solveSteadyState(params({ coss: 300e-12, deadTime: 250e-9 }), 4);
     expect(r.zvs).toBe(true);

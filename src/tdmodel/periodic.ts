@@ -7,7 +7,7 @@ import type { HeldOutputResult, SteadyStateResult, TdParams } from './types.js';
 
 /** Options of solveSteadyState. */
 export interface SteadyOptions {
-  /** Starting output voltage, V. @default FHA estimate (method reference 2.4) */
+  /** Starting output voltage, V. @default FHA estimate (docs/method.md#gain) */
   voGuess?: number;
   /** Warm start: the t = 0 state of a nearby solution (e.g. a neighbouring frequency). */
   guess?: HeldOutputResult['seed'];

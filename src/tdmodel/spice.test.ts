@@ -60,7 +60,7 @@ function run(text: string): Record<string, number> {
 }
 
 // Without ngspice on PATH these checks are skipped (the rest of the suite does not need it).
-describe.skipIf(!hasNgspice)('seeded ngspice run of the method reference 6.3 circuit', () => {
+describe.skipIf(!hasNgspice)('seeded ngspice run of shared/checks/worked-example.json circuit', () => {
   for (const [fs, rl] of [[90e3, 4], [130e3, 6]] as const) {
     it(`fs ${fs / 1e3} kHz, RL ${rl} ohm: settled from the first cycle; Vo and Ir,rms agree`, () => {
       const p = params({ fs, vf: 0.1725, rd: 0.0015 });

@@ -12,7 +12,7 @@ function same(a: SteadyStateResult, b: SteadyStateResult) {
   expect(rel(a.power.input, b.power.input)).toBeLessThan(1e-8);
 }
 
-// Circuit identities ([D], derived here): a full bridge at Vin is a half bridge at 2 Vin shifted
+// Circuit identities (derived here): a full bridge at Vin is a half bridge at 2 Vin shifted
 // by Vin (the Cr takes the DC), with two switches in the path (so rdsOn/2 each for the same
 // resistance) and each leg of 2 Coss swinging half the voltage (so 2 Coss per switch for the
 // same dead-time charge). A full-bridge rectifier has two diodes in the path: VF/2 and rd/2 each
@@ -35,12 +35,12 @@ describe('topology equivalences', () => {
       });
     }
   }
-  it('ideal FB inverter gives the HB gain at Vin_eff = Vin (method reference 2.4, k_b)', () => {
+  it('ideal FB inverter gives the HB gain at Vin_eff = Vin (docs/method.md#gain, k_b)', () => {
     const hb = solveSteadyState(params({ fs: 75e3 }), 3);
     const fb = solveSteadyState(params({ fs: 75e3, inverter: 'full-bridge', vin: 200 }), 3);
     expect(rel(fb.gain, hb.gain)).toBeLessThan(1e-9);
   });
-  it('FB rectifier drop counts 2 VF: gain n (Vo + 2 VF) / Vin_eff (method reference 2.4)', () => {
+  it('FB rectifier drop counts 2 VF: gain n (Vo + 2 VF) / Vin_eff (docs/method.md#gain)', () => {
     const r = solveSteadyState(params({ rectifier: 'full-bridge', vf: 0.8 }), 4);
     expect(r.gain).toBeCloseTo((4 * (r.vo + 1.6)) / 200, 12);
     expect(r.power.diodeForward).toBeCloseTo(1.6 * r.io, 9);

@@ -82,7 +82,7 @@ export interface HeldOutputResult {
   vo: number;
   /** Average rectified output current, A. */
   ioRect: number;
-  /** Tank gain n (Vo + V_drop) / Vin_eff (method reference 2.4). */
+  /** Tank gain n (Vo + V_drop) / Vin_eff (docs/method.md#gain). */
   gain: number;
   /** Rectifier sequence in the half period that starts at the high-side turn-on, e.g. 'PO', 'NP'. */
   mode: string;

@@ -13,7 +13,7 @@ const failure = (r: ParseResult): string => {
 
 // Prefix factors: SI Brochure, 9th edition (BIPM 2019), table of SI prefixes (table number from
 // memory); `meg` is the SPICE spelling of mega: ngspice manual, section "Some naming conventions"
-// (as cited in the method reference, section 7.1).
+// (as cited in ngspice manual, "Some naming conventions").
 describe('scale prefixes', () => {
   const cases: [string, 'henry' | 'farad' | 'ohm' | 'hertz' | 'volt', number][] = [
     ['1T', 'hertz', 1e12],
@@ -73,7 +73,7 @@ describe('scale prefixes', () => {
   });
 });
 
-// The SPICE traps: ngspice manual, section "Some naming conventions" (method reference section 7.1/7.2):
+// The SPICE traps: ngspice manual, section "Some naming conventions" (ngspice manual, "Some naming conventions"):
 // SPICE reads M (any case) as milli and only "meg" as mega; this parser refuses a bare M instead of guessing.
 describe('meg / M / m traps', () => {
   it('refuses a bare M and offers both spellings', () => {

@@ -55,7 +55,7 @@ describe('physically impossible designs', () => {
 
   it('a target gain FHA cannot reach: the corner is "unreachable", a warning names turnsRatio, and no NaN is printed or written', async () => {
     // M = n (Vo + VF) / (Vin/2) = 8 * 24.5 / 50 = 3.92, while an Ln = 5 tank at Q = Zr/Rac = 37.8/127 = 0.30
-    // peaks near 1.3 (method reference 2.4 and 2.8; Rac = 8 n^2 V_rect / (pi^2 Io))
+    // peaks near 1.3 (docs/method.md#gain, #solving; Rac = 8 n^2 V_rect / (pi^2 Io))
     const file = designFile('unreachable.yaml', { 'operating.vin': '[100 V]', 'operating.frequency': 'regulate' });
     const json = join(dir, 'unreach.json');
     const csv = join(dir, 'unreach.csv');

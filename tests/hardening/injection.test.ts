@@ -1,6 +1,6 @@
 // Injection through the design file: names, model files and model paths must never put a dot command,
-// a foreign file or a path outside the output folder into what tankcheck writes. Engine notes section 2
-// ("Security") is the threat model: a .control block in a deck runs `shell` under native ngspice.
+// a foreign file or a path outside the output folder into what tankcheck writes. The threat model:
+// a .control block in a deck runs `shell` under native ngspice.
 import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { execFileSync } from 'node:child_process';
 import { tmpdir } from 'node:os';

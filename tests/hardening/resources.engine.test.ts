@@ -35,7 +35,7 @@ function design(name: string): string {
 
 describe('job count', () => {
   it('wasm workers are bounded by free memory (0.5 GB each), native jobs by 4 per core; never below 1', () => {
-    // engine notes section 1: 380-490 MB RSS per wasm instance
+    // 380-490 MB RSS per wasm instance, measured during development (bench/RESULTS.md section 6 measures it again)
     expect(maxJobs('wasm', { cpus: 64, freeBytes: 8 * GB })).toBe(16);
     expect(maxJobs('wasm', { cpus: 64, freeBytes: 1.4 * GB })).toBe(2);
     expect(maxJobs('wasm', { cpus: 64, freeBytes: 0.3 * GB })).toBe(1);

@@ -1,5 +1,5 @@
 // FHA against simulation on the demo (issue: measurements and the cross-check). Slow-tagged.
-// Expected signs come from method reference section 5.3: below resonance (away from fp) the real
+// Expected signs come from docs/method.md#fha-limits: below resonance (away from fp) the real
 // gain exceeds FHA, above resonance it falls below; at resonance the ideal gain is 1 for any load.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createNgspiceEngine, createWasmEngine } from '../../src/engine/index.js';
@@ -44,7 +44,7 @@ for (const engineName of ['ngspice', 'wasm'] as const) describe(`cross-check on 
     for (const fn of [0.75, 0.85]) expect(at(fn).sim!.gain).toBeGreaterThan(at(fn).fha.gain!);
     for (const fn of [1.25, 1.5]) expect(at(fn).sim!.gain).toBeLessThan(at(fn).fha.gain!);
   });
-  it('rectifier ZCS holds below resonance and is lost above (method reference 4.2)', () => {
+  it('rectifier ZCS holds below resonance and is lost above (docs/method.md#zcs)', () => {
     for (const fn of [0.75, 0.85]) expect(at(fn).sim!.zcs).toBe(true);
     for (const fn of [1.25, 1.5]) expect(at(fn).sim!.zcs).toBe(false);
     expect(at(0.85).sim!.mode).toMatch(/^P+O/);

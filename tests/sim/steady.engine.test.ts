@@ -32,7 +32,7 @@ describe('steady state on the demo nominal corner', () => {
   it('the seeded, verified steady state agrees with a long run from zero state within 0.2 % on Vout', async () => {
     const seeded = await simulateSteady(native, design, corner, fs, fhaSeed(design, corner, fs, 24), opts);
     expect(seeded.settled).toBe(true);
-    // Zero state, 600 cycles (engine notes section 3: zero start needs about 225), average of the last 20.
+    // Zero state, 600 cycles (a zero start settled in about 225 cycles when measured during development), average of the last 20.
     const zero = { vo: 0, ir: 0, im: 0, vcr: 0, va: 0, vb: 0 };
     const deck = buildDeck({ design, corner, fs, seed: zero, cycles: 600, saveCycles: 20 });
     const long = await native.run({ id: 'long', deck: deck.text, timeoutMs: 120_000 });
@@ -61,8 +61,8 @@ describe('steady state on the demo nominal corner', () => {
     expect(rel(w.metrics!.tankCurrentRms, n.metrics!.tankCurrentRms)).toBeLessThan(0.01);
   });
 
-  it('the tank RMS current at fs = fr matches the exact ideal result of method reference 3.1 within 2 %', async () => {
-    // Method reference 3.1 [D]: at fs = fr, Ir,rms = sqrt((pi Io / (2 sqrt2 n))^2 + Im,pk^2 / 2), Im,pk = n V_rect / (4 fs Lm).
+  it('the tank RMS current at fs = fr matches the exact ideal result of docs/method.md#tank-currents within 2 %', async () => {
+    // docs/method.md#tank-currents (derived): at fs = fr, Ir,rms = sqrt((pi Io / (2 sqrt2 n))^2 + Im,pk^2 / 2), Im,pk = n V_rect / (4 fs Lm).
     const fr = predictCorner(design, corner).fr;
     const r = await simulateSteady(native, design, corner, fr, fhaSeed(design, corner, fr, 24), opts);
     const m = r.metrics!;
@@ -70,7 +70,7 @@ describe('steady state on the demo nominal corner', () => {
     const vrect = m.vout + design.rectifier.forwardVoltage;
     const exact = Math.hypot((Math.PI * m.iout) / (2 * Math.SQRT2 * n), (n * vrect) / (4 * fr * corner.lm) / Math.SQRT2);
     expect(rel(m.tankCurrentRms, exact)).toBeLessThan(0.02);
-    // the gain at resonance is 1 less the losses FHA leaves out (method reference 5.3)
+    // the gain at resonance is 1 less the losses FHA leaves out (docs/method.md#fha-limits)
     expect(m.gain).toBeGreaterThan(0.98);
     expect(m.gain).toBeLessThan(1.005);
     void spanRms;

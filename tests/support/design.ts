@@ -3,7 +3,7 @@ import type { Design } from '../../src/design/types.js';
 type DeepPartial<T> = { [K in keyof T]?: T[K] extends object ? (T[K] extends unknown[] ? T[K] : DeepPartial<T[K]>) : T[K] };
 
 /**
- * A Design built in code for tests. Defaults are the method reference's worked example 6.3
+ * A Design built in code for tests. Defaults are the worked example of shared/checks/worked-example.json
  * (HB, CT, ideal diodes, Vin 400 V, Lr 50 uH, Cr 50 nF, Lm 250 uH, n 4, RL 4 ohm, fs 90 kHz).
  */
 export function makeDesign(over: DeepPartial<Design> = {}): Design {

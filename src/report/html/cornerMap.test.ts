@@ -34,7 +34,7 @@ describe('renderCornerMap', () => {
     expect(count(html, '<figure class="map">')).toBe(1);
     expect(count(html, '<td class="st-diverged">')).toBe(6);
     expect(count(html, '✗ diverged (')).toBe(6);
-    // Recorded run: the rectifier commutates hard above resonance (Vin 410 V, fs > fr), method reference 4.2.
+    // Recorded run: the rectifier commutates hard above resonance (Vin 410 V, fs > fr), docs/method.md#zcs.
     const hard = demo.results.corners.filter((c) => c.sim && !c.sim.zcs).length;
     expect(hard).toBeGreaterThan(0);
     expect(count(html, 'ZCS lost')).toBe(hard);

@@ -3,8 +3,9 @@ import { readFileSync } from 'node:fs';
 import type { Design } from '../../design/types.js';
 import { loadDesignOrThrow } from '../../design/load.js';
 import type { CornerResult, Results, WaveformExcerpt } from '../../results/types.js';
+import { sharedFile } from '../../../tests/support/shared.js';
 
-const here = (f: string) => new URL(`../../../shared/report/${f}`, import.meta.url);
+const here = (f: string) => sharedFile('report', f);
 
 /**
  * Recorded output of `tankcheck run examples/demo.yaml --engine ngspice` (ngspice-39): the full

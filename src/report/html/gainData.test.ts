@@ -8,12 +8,12 @@ import { gainCurve, gainFigureData, zeroPhaseLocus } from './gainData.js';
 const demo = await loadDemo();
 
 describe('gain curves', () => {
-  it('pass through M = 1 at fs = fr for every load (method reference 2.5: Zs = 0 at fn = 1)', () => {
+  it('pass through M = 1 at fs = fr for every load (docs/method.md#gain-limits: Zs = 0 at fn = 1)', () => {
     const { fr } = tankConstants(demo.design.tank);
     for (const load of [0.5, 2.4, 9.6, 100]) expect(gainCurve(demo.design, load, demo.design.tank, [fr])[0]).toBeCloseTo(1, 12);
   });
 
-  it('pass through each regulated corner\'s FHA operating point (same Q as predictCorner, method reference 2.8)', () => {
+  it('pass through each regulated corner\'s FHA operating point (same Q as predictCorner, docs/method.md#solving)', () => {
     for (const c of demo.results.corners) {
       const [g] = gainCurve(demo.design, c.inputs.load, c.inputs, [c.fha.fs!]);
       expect(Math.abs(g! / c.fha.gain! - 1)).toBeLessThan(1e-9);
@@ -62,14 +62,14 @@ describe('zero-phase locus', () => {
   const { fr, fp, ln } = tankConstants(demo.design.tank);
   const locus = zeroPhaseLocus(fr, ln);
 
-  it('has zero input phase at every point (definition, checked on the impedance, method reference 2.6)', () => {
+  it('has zero input phase at every point (definition, checked on the impedance, docs/method.md#zero-phase)', () => {
     locus.fs.forEach((fs, i) => {
       const q = 1e-3 * 3e4 ** (i / (locus.fs.length - 1));
       expect(Math.abs(inputPhase(fs / fr, q, ln))).toBeLessThan(1e-9);
     });
   });
 
-  it('runs from fp at light load to (fr, M = 1) at heavy load (limits Q -> 0 and Q -> infinity, method reference 2.6)', () => {
+  it('runs from fp at light load to (fr, M = 1) at heavy load (limits Q -> 0 and Q -> infinity, docs/method.md#zero-phase)', () => {
     expect(locus.fs[0]! / fp).toBeCloseTo(1, 3);
     expect(locus.fs.at(-1)! / fr).toBeCloseTo(1, 3);
     expect(locus.gain.at(-1)!).toBeCloseTo(1, 3);

@@ -72,7 +72,7 @@ function loadKeys(corners: CornerResult[]): LoadKey[] {
 
 /**
  * FHA gain at each grid frequency for one load resistance and tank, at the Q of the output set point:
- * Q = Zr / Rac with Rac = 8 n^2 (Vo + drop) RL / (pi^2 Vo) (method reference 2.2, 2.4). This is the
+ * Q = Zr / Rac with Rac = 8 n^2 (Vo + drop) RL / (pi^2 Vo) (docs/method.md#fha-rectifier, #gain). This is the
  * Q predictCorner uses when regulating, so a regulated corner's FHA point lies on its curve; at a
  * fixed frequency the corner's own Vo shifts Q only through the drop term.
  */
@@ -82,7 +82,7 @@ export function gainCurve(design: Design, load: number, tank: { lr: number; cr: 
   return grid.map((fs) => finite(fhaGain(fs / fr, q, ln)));
 }
 
-/** Zero-phase boundary of the nominal tank as a locus over Q from 1e-3 to 30 (method reference 2.6). */
+/** Zero-phase boundary of the nominal tank as a locus over Q from 1e-3 to 30 (docs/method.md#zero-phase). */
 export function zeroPhaseLocus(fr: number, ln: number, points = BOUNDARY_POINTS): { fs: number[]; gain: number[] } {
   const fs: number[] = [];
   const gain: number[] = [];

@@ -33,7 +33,7 @@ function tooltip(p: GainPoint): string {
   return `${p.id}: ${fha}; ${sim}${gap}`;
 }
 
-/** Capacitive region: left of fp, and below the zero-phase locus down to fr (method reference 2.6). */
+/** Capacitive region: left of fp, and below the zero-phase locus down to fr (docs/method.md#zero-phase). */
 function capacitiveRegion(d: GainFigureData, sx: Scale, sy: Scale, h: number): string {
   if (!d.boundary || d.fr === null) return '';
   const b = linePath(d.boundary.fs, d.boundary.gain, sx, sy).replace(/^M/, 'L');

@@ -44,7 +44,7 @@ describe('renderHtmlReport on the recorded demo run', () => {
     expect(expected.length).toBeGreaterThan(0);
     const cells = [...html.matchAll(/<td class="err flag"[^>]*title="([^"]*)"[^>]*>[^<]*<span class="mark"[^>]*>▲<\/span>/g)];
     expect(cells).toHaveLength(expected.length);
-    expect(cells.map((m) => m[1])).toEqual(expect.arrayContaining([expect.stringContaining('method reference 3.4')]));
+    expect(cells.map((m) => m[1])).toEqual(expect.arrayContaining([expect.stringContaining('docs/method.md#diode-currents')]));
   });
 
   it('draws one gain curve per load and Vin and the declared number of series in every plot', () => {

@@ -1,7 +1,7 @@
 /**
  * Injection payloads for the hardening tests. Every payload tries to make native ngspice create a marker
- * file through a `.control` block (`shell touch <marker>`): engine notes section 2 ("Security") measured
- * that such a block runs under `ngspice -b`, also from an included file and after `.end`.
+ * file through a `.control` block (`shell touch <marker>`): such a block runs under `ngspice -b`,
+ * also from an included file and after `.end` (checked harmlessly with a marker file on ngspice-39).
  */
 import { randomBytes } from 'node:crypto';
 import { tmpdir } from 'node:os';
