@@ -9,6 +9,7 @@ import { makeDesign } from '../../tests/support/design.js';
 import type { Design } from '../design/types.js';
 import { TEMPLATES } from './templateText.js';
 import { generate } from '../../scripts/gen-templates.mjs';
+import { sharedFile } from '../../tests/support/shared.js';
 
 const topologies = [
   ['half-bridge', 'center-tapped'], ['half-bridge', 'full-bridge'], ['full-bridge', 'center-tapped'], ['full-bridge', 'full-bridge'],
@@ -30,7 +31,7 @@ describe('golden decks (normalised text)', () => {
         const d = makeDesign({ name: 'golden', topology: { inverter, rectifier }, tank: { lr: 50e-6, cr: 50e-9, lm: 250e-6, turnsRatio: 4, integrated },
           rectifier: { forwardVoltage: 0.7, resistance: 0.01 } });
         const text = deckFor(d).text;
-        const file = new URL(`../../shared/golden/${name}`, import.meta.url);
+        const file = sharedFile('golden', name);
         if (process.env['UPDATE_GOLDEN'] || !existsSync(file)) writeFileSync(file, text);
         expect(normalise(text)).toBe(normalise(readFileSync(file, 'utf8')));
       });
@@ -38,7 +39,7 @@ describe('golden decks (normalised text)', () => {
   }
 });
 
-describe('deck hygiene (method reference 7.2, engine notes section 2)', () => {
+describe('deck hygiene (SPICE number pitfalls: ngspice manual, "Some naming conventions")', () => {
   const d = makeDesign({ topology: { inverter: 'full-bridge', rectifier: 'full-bridge' } });
   const text = deckFor(d).text;
   it('is 7-bit ASCII, ends with .end and has no control block, include or interpolation option', () => {
@@ -51,7 +52,7 @@ describe('deck hygiene (method reference 7.2, engine notes section 2)', () => {
     const values = text.split('\n').filter((l) => /^[A-Z]/.test(l) && !/^K/.test(l)).flatMap((l) => l.split(/[\s()=]+/).slice(3));
     for (const v of values.filter((x) => /^[0-9.+-]/.test(x))) expect(v).toMatch(/^(-?\d\.\d{12}e[+-]\d+|0|1|12|2|1e7|1e8|1e9)$/);
   });
-  it('uses trapezoidal integration only with a tightened reltol (engine notes: trap at 1e-3 rings)', () => {
+  it('uses trapezoidal integration only with a tightened reltol (trap at reltol 1e-3 rang in a time-step study during development)', () => {
     const m = /method=(\w+) reltol=(\S+)/.exec(text)!;
     if (m[1] === 'trap') expect(Number(m[2])).toBeLessThanOrEqual(1e-4);
   });

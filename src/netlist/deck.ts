@@ -6,8 +6,8 @@ import { renderTemplate, safeName, type TemplateValue } from './render.js';
 import { diodeModelCard, diodeInstance, switchInstance, userModelCards } from './devices.js';
 
 /**
- * Accuracy profiles (engine notes section 2, time-step study): trapezoidal integration only with
- * reltol 1e-4 (at the default 1e-3 it rings), step limited to a fraction of the period.
+ * Accuracy profiles: trapezoidal integration only with reltol 1e-4 (at the default 1e-3 it rang in a
+ * time-step study on the LLC deck during development; docs/method.md#steady-state), step limited to a fraction of the period.
  */
 export const STEP_PROFILES: Record<Accuracy, StepProfile> = {
   fast: { method: 'trap', reltol: 1e-4, stepsPerPeriod: 140 },

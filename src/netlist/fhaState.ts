@@ -9,7 +9,7 @@ import { inputImpedance } from '../fha/gain.js';
  * centred on the middle of the dead time, (4/pi) Vin_eff sin(w (t - td/2)); the tank current lags
  * it by phi, the primary voltage leads or lags by the transfer angle, Im lags that voltage by 90
  * degrees and the Cr voltage lags the tank current by 90 degrees around its DC bias. Every state is
- * taken at its value at that instant, not its mean (engine notes section 3).
+ * taken at its value at that instant, not its mean (a mean-valued start settled more slowly when measured).
  */
 export function fhaSeed(design: Design, corner: Corner, fs: number, vout: number): DeckSeed {
   const { fr, zr, ln } = tankConstants(corner);
