@@ -4,8 +4,9 @@
 import { readFileSync } from 'node:fs';
 import type { Design, Inverter, Rectifier } from '../../src/design/types.js';
 import { makeDesign } from '../support/design.js';
+import { sharedFile } from '../support/shared.js';
 
-export const REFERENCE_DIR = new URL('../../shared/reference/', import.meta.url).pathname;
+export const REFERENCE_DIR = sharedFile('reference') + '/';
 
 /** One reference deck: its scenario and the design that describes the same circuit to the tool. */
 export interface ReferenceCase {
