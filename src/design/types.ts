@@ -111,6 +111,10 @@ export interface Design {
     accuracy: Accuracy;
     /** Relative agreement of successive output averages that counts as settled. @default 0.001 */
     settleTolerance: number;
+    /** |avg(i_Co)| / Io over the last two settle windows that counts as charge-balanced. @default 0.01 */
+    chargeBalanceTolerance: number;
+    /** Tank current and Cr voltage change over the last two settle windows, relative to their peaks. @default 0.01 */
+    periodicityTolerance: number;
     /** Cycle cap per corner before it is reported as not settled. @default 2000 */
     maxCycles: number;
     /** ZVS: switch voltage at turn-on below this fraction of Vin counts as ZVS. @default 0.05 */

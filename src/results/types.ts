@@ -26,6 +26,13 @@ export interface SimSummary extends SimMetrics {
   settled: boolean;
   /** Relative difference of the last two output-voltage windows. */
   settleError: number;
+  /**
+   * Output capacitor charge-balance error avg(i_Co) / Io, signed (positive: still
+   * charging); steady state needs |value| <= simulation.chargeBalanceTolerance.
+   */
+  chargeBalanceError?: number;
+  /** Tank periodicity error (tank current, Cr voltage; relative to their peaks). */
+  periodicityError?: number;
 }
 
 export interface CornerResult {

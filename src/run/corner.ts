@@ -57,7 +57,8 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
   if (!steady.ok || !steady.metrics) {
     return { result: withIdeal(failed(corner, fha, steady.failure ?? { kind: 'engine', message: 'no result' }), ideal) };
   }
-  const sim: SimSummary = { ...steady.metrics, cycles, runs, simulations, settled: steady.settled, settleError: steady.settleError };
+  const sim: SimSummary = { ...steady.metrics, cycles, runs, simulations, settled: steady.settled, settleError: steady.settleError,
+    chargeBalanceError: steady.chargeBalanceError, periodicityError: steady.periodicityError };
   const cmp = compareCorner(design, fha, steady.metrics, regulated, ideal.ideal);
   const measured = { sim, comparison: cmp.rows, divergences: cmp.divergences };
   const result: CornerResult = withIdeal(regulationMet ? simulated(corner, fha, measured)

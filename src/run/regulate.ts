@@ -2,7 +2,6 @@ import type { Design } from '../design/types.js';
 import type { Corner } from '../corners/types.js';
 import type { SimEngine } from '../engine/types.js';
 import type { DeckSeed } from '../netlist/types.js';
-import { predictCorner } from '../fha/predict.js';
 import { simulateSteady, type SteadyOptions, type SteadyResult } from './steady.js';
 
 /** Regulation is met when the simulated output is within this fraction of output.voltage. */
@@ -19,12 +18,7 @@ export interface RegulateResult {
   met: boolean;
 }
 
-/** FHA slope dVo/dfs at a frequency, V/Hz (negative on the inductive branch). */
-export function fhaSlope(design: Design, corner: Corner, fs: number): number {
-  const h = fs * 0.005;
-  const v = (f: number) => predictCorner(design, { ...corner, fs: f }).vout ?? 0;
-  return (v(fs + h) - v(fs - h)) / (2 * h);
-}
+export { fhaSlope } from './seed.js';
 
 /**
  * Find in simulation the switching frequency at which Vout meets output.voltage: start at fs0,

@@ -7,14 +7,22 @@ import { buildDeck, STEP_PROFILES } from '../netlist/deck.js';
 import { runWithRetries, ZERO_START_LABEL } from '../engine/retry.js';
 import { finalState, toWaveforms } from '../netlist/waveforms.js';
 import { makeSpan, measure, spanAverage } from '../measure/index.js';
+import { isSettled, stateBalance, type StateBalance } from '../measure/balance.js';
 import { predictCorner } from '../fha/predict.js';
+import { equilibriumVoltage, secantResistance, shootState, slowMode, type SlowMode, type SlowPoint } from './shooting.js';
 
 /** Settling and measurement window: whole switching cycles. */
 export const WINDOW_CYCLES = 6;
+/** Windows over which charge balance and tank periodicity are judged (the last ones of each run). */
+export const BALANCE_WINDOWS = 2;
 
 export interface SteadyOptions {
-  /** Relative settle tolerance (design.simulation.settleTolerance). */
+  /** Relative settle tolerance of the output voltage (design.simulation.settleTolerance). */
   tolerance: number;
+  /** |avg(i_Co)| / Io that counts as balanced. @default design.simulation.chargeBalanceTolerance */
+  chargeBalanceTolerance?: number;
+  /** Tank state change over a window, relative to its swing. @default design.simulation.periodicityTolerance */
+  periodicityTolerance?: number;
   /** Cycle cap for this operating point. */
   maxCycles: number;
   /** Per-run wall-clock limit, ms; default from the cycle count. */
@@ -28,8 +36,14 @@ export interface SteadyResult {
   ok: boolean;
   failure?: SimFailure & { detail?: string };
   settled: boolean;
-  /** Larger of the window-to-window change and the charge-balance drift estimate (both relative). */
+  /** Output-voltage settle error: window-to-window change, projected drift and geometric tail (relative). */
   settleError: number;
+  /** Final window's avg(i_Co) / Io, signed (positive: still charging); NaN without a result. */
+  chargeBalanceError: number;
+  /** Final window's tank periodicity error (relative to the swing); NaN without a result. */
+  periodicityError: number;
+  /** Shooting steps taken on the output voltage. */
+  shots: number;
   cycles: number;
   runs: number;
   metrics?: SimMetrics;
@@ -94,24 +108,34 @@ function windowAverages(w: Waveforms, t0: number, period: number, cycles: number
 }
 
 /**
- * Simulate one operating point until it is verified to be in steady state. The first run covers
- * three windows of WINDOW_CYCLES cycles, each continuation two more, started from the final state
- * of the previous run; the window averages form one history that settleErrorOf judges, until the
- * error is within tolerance or the cycle cap is reached ("not settled"). The last window is measured.
+ * Simulate one operating point until it is shown to be in a periodic steady state. The first run
+ * covers three windows of WINDOW_CYCLES cycles, each continuation two more, started from the final
+ * state of the previous run. The last window of each run is judged by isSettled: output voltage
+ * (settleErrorOf over the window history), charge balance and tank periodicity. When the charge is
+ * out of balance, the continuation starts with the output capacitor at the equilibrium voltage
+ * that window predicts (one shooting step, see shooting.ts) instead of waiting out Co (R || RL).
+ * At the cycle cap the corner is "not settled". The last window is measured.
  */
 export async function simulateSteady(engine: SimEngine, design: Design, corner: Corner, fs: number,
   seed: DeckSeed, opts: SteadyOptions): Promise<SteadyResult> {
   const K = WINDOW_CYCLES;
   const period = 1 / fs;
   const profile = opts.profile ?? STEP_PROFILES[design.simulation.accuracy];
+  const tol = {
+    vout: opts.tolerance,
+    chargeBalance: opts.chargeBalanceTolerance ?? design.simulation.chargeBalanceTolerance,
+    periodicity: opts.periodicityTolerance ?? design.simulation.periodicityTolerance,
+  };
   const attempts: Attempt[] = [];
   const tau = outputTimeConstant(design, corner, fs);
   const tauMax = corner.load * design.output.capacitance;
   const history: number[] = [];
+  const shots: SlowPoint[] = [];
+  let slow: SlowMode | undefined;
   let state = seed;
   let cycles = 0;
   let runs = 0;
-  let last: Omit<SteadyResult, 'cycles' | 'runs' | 'attempts' | 'fs'> | undefined;
+  let last: (Omit<SteadyResult, 'cycles' | 'runs' | 'attempts' | 'fs' | 'shots'> & { balance: StateBalance }) | undefined;
   for (;;) {
     const windows = runs === 0 ? 3 : 2;
     if (runs > 0 && cycles + windows * K > opts.maxCycles) break;
@@ -123,17 +147,42 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
     attempts.push(...res.attempts);
     if (!res.ok) {
       const detail = res.diagnostics.filter((d) => d.level === 'error').map((d) => d.text).slice(-5).join('\n');
-      return { fs, ok: false, failure: { ...res.failure!, detail }, settled: false, settleError: NaN, cycles, runs, windowStart: 0, attempts };
+      return { fs, ok: false, failure: { ...res.failure!, detail }, settled: false, settleError: NaN, chargeBalanceError: NaN,
+        periodicityError: NaN, shots: shots.length, cycles, runs, windowStart: 0, attempts };
     }
     const w = toWaveforms(design, corner, fs, res.vectors);
     // A zero-state retry is a new start: earlier windows no longer describe this trajectory.
     if (res.attempts.at(-1)?.label === ZERO_START_LABEL) history.length = 0;
     history.push(...windowAverages(w, deck.tstart, period, K, windows));
     const err = settleErrorOf(history, K * period, tau, tauMax);
+    const windowStart = deck.tstop - K * period;
+    // Charge balance and periodicity over the last two windows: the numerical noise of the default
+    // step profile (a lightly damped ringing of Co with the tank) largely averages out over 12 cycles.
+    const balance = stateBalance(w, deck.tstop - BALANCE_WINDOWS * K * period, deck.tstop, corner.load);
     state = finalState(w, res.vectors);
-    last = { ok: true, settled: err <= opts.tolerance, settleError: err, waveforms: w, windowStart: deck.tstop - K * period, state };
-    if (last.settled) break;
+    const settled = isSettled(err, balance, tol);
+    last = { ok: true, settled, settleError: err, chargeBalanceError: balance.chargeBalance, periodicityError: balance.periodicity,
+      waveforms: w, windowStart, state, balance };
+    if (settled) break;
+    if (Math.abs(balance.chargeBalance) <= tol.chargeBalance) continue;
+    slow ??= slowMode(design, corner, fs);
+    // Shoot only when the capacitor is slow against a window: a faster one settles by itself within
+    // the next run, and its window averages are dominated by the ringing of Co with the tank.
+    if (design.output.capacitance * slow.r > K * period) {
+      // Shooting step on the output capacitor voltage; the voltage history restarts with it.
+      // The step reads the last window only: the one before it may still carry the previous step's transient.
+      const lw = stateBalance(w, windowStart, deck.tstop, corner.load);
+      const p: SlowPoint = { vco: lw.voutAvg - design.output.esr * lw.capCurrentAvg, icap: lw.capCurrentAvg };
+      const prev = shots.at(-1);
+      const secant = prev ? secantResistance(prev, p) : null;
+      // The secant is trusted within a factor of a few of the model (a window still ringing gives nonsense).
+      const r = secant !== null ? Math.min(Math.max(secant, slow.r / 2), slow.r * 4) : slow.r;
+      shots.push(p);
+      state = shootState(state, p, equilibriumVoltage(p, r), corner.load, slow.direction);
+      history.length = 0;
+    }
   }
-  const metrics = measure(last!.waveforms!, { tStart: last!.windowStart, cycles: K }, { zvsThreshold: design.simulation.zvsThreshold });
-  return { fs, ...last!, metrics, cycles, runs, attempts };
+  const { balance: _b, ...final } = last!;
+  const metrics = measure(final.waveforms!, { tStart: final.windowStart, cycles: K }, { zvsThreshold: design.simulation.zvsThreshold });
+  return { fs, ...final, metrics, cycles, runs, shots: shots.length, attempts };
 }

@@ -17,7 +17,7 @@ export function makeDesign(over: DeepPartial<Design> = {}): Design {
     operating: { vin: [400], load: [{ kind: 'ohm', value: 4 }], ratedPower: 676, frequency: [90e3], corners: [] },
     tolerances: { lr: 0, cr: 0, lm: 0, corners: 'nominal' },
     compare: { vout: 0.03, fs: 0.05, gain: 0.03, currents: 0.1, voltages: 0.1 },
-    simulation: { accuracy: 'normal', settleTolerance: 0.001, maxCycles: 2000, zvsThreshold: 0.05 },
+    simulation: { accuracy: 'normal', settleTolerance: 0.001, chargeBalanceTolerance: 0.01, periodicityTolerance: 0.01, maxCycles: 2000, zvsThreshold: 0.05 },
     devices: {},
   };
   return merge(base, over) as Design;
