@@ -17,6 +17,7 @@ import { measureFhaRate } from './fha.js';
 import { measureCache } from './cache.js';
 import { measureMemory } from './memory.js';
 import { measureSaveCost } from './costs.js';
+import { measureCapacitors } from './capacitor.js';
 import { renderResults } from './report.js';
 import { elapsedS, log } from './util.js';
 import { cpuSnapshot, foreignShare } from './cpu.js';
@@ -78,6 +79,9 @@ async function main(): Promise<void> {
   const fha = designs.map((d) => measureFhaRate(d));
 
   phaseDone('4. FHA');
+  log('case 7: output capacitor 470 uF vs 10 mF (system ngspice)');
+  const capacitor = await measureCapacitors(designs[0]!, ngspice);
+  phaseDone('7. capacitor');
   log('case 5: cache');
   const cache = await measureCache(designs[0]!, ngspice, defaultJobs('ngspice'));
   await ngspice.close();
@@ -91,7 +95,7 @@ async function main(): Promise<void> {
   const text = renderResults({
     machine, date, totalS: elapsedS(), foreign, changed: sourcesChangedSince(startedAt), designs: designs.map((d) => ({ key: d.key, file: d.file, corners: expandCorners(d.design).length })),
     settleEngine, settle, refs: [...reqs.keys()].map((k) => refs.get(k)!), summaries: methodSummaries(settle, designs.map((d) => d.key)),
-    engines, fha, cache, memory, first, saveCost,
+    engines, fha, cache, memory, first, saveCost, capacitor,
   });
   const out = here('./RESULTS.md');
   await writeFile(out, text);

@@ -11,7 +11,7 @@ import { writeFilesAtomic } from './files.js';
 import { TOOL_VERSION } from '../version.js';
 
 /** Bump when the simulation or measurement method changes, so old entries are not reused. */
-export const CACHE_FORMAT = 2;
+export const CACHE_FORMAT = 3;
 
 /**
  * Content-addressed corner cache on disk. The key hashes the corner's first deck (every circuit
