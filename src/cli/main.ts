@@ -10,7 +10,7 @@ import { writeFilesAtomic } from '../run/files.js';
 import { writeDecks } from './decks.js';
 import { runCommand, type RunFlags } from './run.js';
 import { reportCommand } from './report.js';
-import { EXIT, UsageError } from './exit.js';
+import { EXIT, renderExitTable, UsageError } from './exit.js';
 import { TOOL_VERSION } from '../version.js';
 
 const DEMO = fileURLToPath(new URL('../../examples/demo.yaml', import.meta.url));
@@ -106,7 +106,9 @@ function program(): Command {
     .option('--cache-dir <dir>', 'corner cache folder', '.tankcheck-cache')
     .option('--keep-decks', 'keep the simulator work folders (system ngspice)')
     .option('--timeout <seconds>', 'wall-clock limit per simulator run', positiveInt)
+    .option('--fail-on <what>', '"divergence": exit 1 on any divergence beyond tolerance (default: only on unexplained ones)')
     .description('simulate every corner and compare with FHA')
+    .addHelpText('after', `\nExit codes:\n${renderExitTable()}\n`)
     .action(async (file: string, o: RunFlags) => {
       const design = await loadOrReport(file);
       throw new ExitSignal(await runCommand({ ...design, file }, o));

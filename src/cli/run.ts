@@ -15,6 +15,7 @@ import { compareBaseline, renderBaseline } from '../compare/baseline.js';
 import { renderHtmlReport } from '../report/html/index.js';
 import { createProgress } from './progress.js';
 import { EXIT, exitCodeFor, UsageError } from './exit.js';
+import { runFailures, type FailOn } from '../results/gate.js';
 
 export interface RunFlags {
   engine: string;
@@ -29,6 +30,8 @@ export interface RunFlags {
   cacheDir: string;
   keepDecks?: boolean;
   timeout?: number;
+  /** 'divergence': also fail on any divergence beyond tolerance (default: only unexplained ones). */
+  failOn?: string;
 }
 
 async function readBaseline(file: string): Promise<Results> {
@@ -47,6 +50,8 @@ async function readBaseline(file: string): Promise<Results> {
 /** `tankcheck run`: returns the exit code; writes results even when interrupted. */
 export async function runCommand(design: Design, o: RunFlags): Promise<number> {
   if (o.engine !== 'wasm' && o.engine !== 'ngspice') throw new UsageError(`--engine must be wasm or ngspice, got ${JSON.stringify(o.engine)}`);
+  if (o.failOn !== undefined && o.failOn !== 'divergence') throw new UsageError(`--fail-on takes "divergence", got ${JSON.stringify(o.failOn)}`);
+  const failOn: FailOn = o.failOn === 'divergence' ? 'divergence' : 'default';
   const baselineTol = Number(o.baselineTolerance);
   if (!(baselineTol >= 0 && baselineTol < 1)) throw new UsageError('--baseline-tolerance must be a fraction in [0, 1)');
   const baseline = o.baseline ? await readBaseline(o.baseline) : undefined;
@@ -98,7 +103,7 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
     const files = [
       { path: join(o.out, 'results.json'), text: renderResultsJson(results) },
       { path: join(o.out, 'results.csv'), text: renderResultsCsv(results) },
-      { path: join(o.out, 'junit.xml'), text: renderJunit(results) },
+      { path: join(o.out, 'junit.xml'), text: renderJunit(results, { failOn }) },
       { path: join(o.out, 'waveforms.json'), text: renderWaveformsJson(waveforms) },
       // what this run took from the cache: kept out of results.json, which stays byte-identical
       { path: join(o.out, 'run-log.json'), text: `${JSON.stringify({ schema: 'tankcheck/run-log@1', cacheDir: o.cache ? o.cacheDir : null, ...run }, null, 2)}\n` },
@@ -115,7 +120,13 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
       const rerun = o.cache ? ' (a rerun takes the finished ones from the cache)' : '';
       process.stderr.write(`tankcheck: interrupted: ${finished} of ${results.corners.length} corners finished; the results are marked incomplete${rerun}\n`);
     }
-    return exitCodeFor(results);
+    const code = exitCodeFor(results, failOn);
+    const why = runFailures(results, failOn);
+    if (code === EXIT.diverged && why.length) {
+      const shown = why.slice(0, 10).map((w) => `  ${w}`).join('\n');
+      process.stdout.write(`exit ${code}:\n${shown}${why.length > 10 ? `\n  ... and ${why.length - 10} more` : ''}\n`);
+    }
+    return code;
   } finally {
     for (const sig of SIGNALS) process.off(sig, onSignal);
     await engine.close();

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { compareBaseline } from './baseline.js';
+import { compareBaseline, renderBaseline } from './baseline.js';
 import { predictStudy } from '../run/study.js';
 import { makeDesign } from '../../tests/support/design.js';
 import type { Results } from '../results/types.js';
@@ -36,5 +36,16 @@ describe('compareBaseline', () => {
   });
   it('a move inside tolerance is not a regression', () => {
     expect(compareBaseline(withSim(base, 1.005), base, 'b.json', 0.01).regressed).toBe(false);
+  });
+  it('a limit check that went from within to outside is reported and is a regression', () => {
+    const now = withSim(base);
+    const before = withSim(base);
+    for (const r of [now, before]) r.corners[0]!.checks = [{ limit: 'crVoltage', bound: 360, kind: 'max', fha: { value: 350, within: true }, ideal: null, sim: { value: 355, within: true }, flip: false }];
+    now.corners[0]!.checks![0]!.sim = { value: 365, within: false };
+    const r = compareBaseline(now, before, 'b.json');
+    expect(r.checksOutside).toEqual([{ id: base.corners[0]!.id, limit: 'crVoltage', before: 355, after: 365, bound: 360 }]);
+    expect(r.regressed).toBe(true);
+    expect(renderBaseline(r)).toMatch(/crVoltage: within -> outside \(355 -> 365, bound 360\)/);
+    expect(compareBaseline(before, before, 'b.json').checksOutside).toEqual([]);
   });
 });

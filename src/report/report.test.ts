@@ -28,14 +28,46 @@ describe('CSV (RFC 4180, parsed back with the csv-parse reference library)', () 
 });
 
 describe('JUnit XML (validated with the fast-xml-parser reference library)', () => {
-  it('is well-formed, one test case per corner, failures and errors counted', () => {
+  it('is well-formed, one test case per corner and one per corner and limit, failures and errors counted', () => {
     const xml = renderJunit(results);
     expect(XMLValidator.validate(xml)).toBe(true);
     const doc = new XMLParser({ ignoreAttributes: false }).parse(xml);
     const suite = doc.testsuites.testsuite;
-    expect(suite.testcase).toHaveLength(4);
-    expect(suite['@_failures']).toBe('1');
+    // 4 corners, each with its region check (capacitive operation is always a limit)
+    expect(suite.testcase).toHaveLength(8);
+    expect(suite.testcase.filter((t: any) => t['@_classname'].endsWith('.limits')).map((t: any) => t['@_name'].split(': ')[1])).toEqual(['region', 'region', 'region', 'region']);
+    expect(suite['@_failures']).toBe('1'); // the divergence has no cause: unexplained
     expect(suite['@_errors']).toBe('1');
+  });
+
+  it('names the failing limit; an explained divergence passes unless failOn is divergence', () => {
+    const design = makeDesign({ limits: { zvs: 'ignore', crVoltage: 450, tankCurrentRms: 10, derating: 0.9 } });
+    const r = predictStudy(design);
+    const c = r.corners[0]!;
+    c.status = 'outside-limits';
+    c.sim = { ...(c.fha as never as Record<string, number>), region: 'inductive', crVoltagePeak: 420, crVoltageMin: -20, settled: true } as never;
+    const cr = c.checks!.find((k) => k.limit === 'crVoltage')!;
+    expect(cr.fha.within).toBe(true); // FHA Cr peak of the worked example, 392.7 V, is below 450 V x 0.9 = 405 V
+    cr.sim = { value: 420, within: false };
+    cr.flip = true;
+    c.checks!.find((k) => k.limit === 'region')!.sim = { value: 'inductive', within: true };
+    c.checks!.find((k) => k.limit === 'tankCurrentRms')!.sim = { value: 6, within: true };
+    c.divergences = [{ metric: 'magnetizingCurrentPeak', fha: 1, sim: 1.2, error: 0.2, tolerance: 0.1, reason: 'triangle', cause: 'approximation' } as never];
+    const parse = (xml: string) => {
+      expect(XMLValidator.validate(xml)).toBe(true);
+      return new XMLParser({ ignoreAttributes: false }).parse(xml).testsuites.testsuite;
+    };
+    const suite = parse(renderJunit(r));
+    const failures = suite.testcase.filter((t: any) => t.failure);
+    expect(failures.map((t: any) => t['@_name'])).toEqual([`${c.id}: crVoltage`]);
+    expect(failures[0].failure['@_message']).toBe('crVoltage outside (FHA said within)');
+    expect(failures[0].failure['#text']).toMatch(/^crVoltage: sim 420 V OUTSIDE, FHA 392.7 V within; bound <= 405 V \(FHA missed this\)$/);
+    expect(suite['@_failures']).toBe('1');
+    const corner = suite.testcase.find((t: any) => t['@_name'] === c.id);
+    expect(corner['system-out']).toMatch(/magnetizingCurrentPeak.*\[approximation\]/);
+    const strict = parse(renderJunit(r, { failOn: 'divergence' }));
+    expect(strict.testcase.find((t: any) => t['@_name'] === c.id).failure['@_message']).toBe('1 metric(s) beyond tolerance');
+    expect(strict['@_failures']).toBe('2');
   });
 });
 

@@ -1,4 +1,6 @@
 import type { CornerResult, Results } from '../results/types.js';
+import { worstCheck } from '../limits/evaluate.js';
+import { describeCheck, showUsage } from '../limits/describe.js';
 
 export interface TableOptions {
   /** ANSI emphasis for flagged cells and statuses (only on a TTY). @default false */
@@ -86,34 +88,53 @@ export function renderRunTable(results: Results, opts: TableOptions = {}): strin
   // Regulated corners are compared on the frequency that meets the target, fixed ones on Vout.
   const showFs = results.corners.some((c) => c.inputs.fs === null);
   const showVout = results.corners.some((c) => c.inputs.fs !== null);
-  const head1 = ['', '', ...(showFs ? ['fs kHz', '', '', ''] : []), ...(showVout ? ['Vout V', '', '', ''] : []), 'gain M', '', '', 'Ir,rms A', '', '', '', 'ZVS', 'ZCS', '', ''];
-  const head2 = ['corner', 'status', ...(showFs ? ['FHA', 'ideal', 'sim', 'err'] : []), ...(showVout ? ['FHA', 'ideal', 'sim', 'err'] : []), 'FHA', 'sim', 'err', 'FHA', 'ideal', 'sim', 'err', 'F/S', 'F/S', 'causes', 'mode'];
+  const head1 = ['', '', ...(showFs ? ['fs kHz', '', '', ''] : []), ...(showVout ? ['Vout V', '', '', ''] : []), 'gain M', '', '', 'Ir,rms A', '', '', '', 'ZVS', 'ZCS', '', '', 'worst limit', '', ''];
+  const head2 = ['corner', 'status', ...(showFs ? ['FHA', 'ideal', 'sim', 'err'] : []), ...(showVout ? ['FHA', 'ideal', 'sim', 'err'] : []), 'FHA', 'sim', 'err', 'FHA', 'ideal', 'sim', 'err', 'F/S', 'F/S', 'causes', 'mode', 'limit', 'use', 'flip'];
   const rows: Cell[][] = results.corners.map((c) => [
     { text: c.id, flagged: false },
-    { text: c.status, flagged: c.status === 'failed' || c.status === 'diverged' || c.status === 'not-settled' },
+    { text: c.status, flagged: c.status === 'failed' || c.status === 'diverged' || c.status === 'not-settled' || c.status === 'outside-limits' },
     ...(showFs ? (c.inputs.fs === null ? triple(c, 'fs', 1e3, 4, true) : blank(4)) : []),
     ...(showVout ? (c.inputs.fs !== null ? triple(c, 'vout', 1, 4, true) : blank(4)) : []),
     ...triple(c, 'gain', 1, 4), ...triple(c, 'tankCurrentRms', 1, 3, true),
     status(c, 'zvs'), status(c, 'zcs'), causeCounts(c), { text: c.sim?.mode ?? '-', flagged: false },
+    ...worstCells(c),
   ]);
-  const last = head2.length - 1;
+  const textual = new Set([0, 1, head2.length - 4, head2.length - 3, head2.length - 1]);
   const widths = head2.map((h, i) => Math.max(h.length, head1[i]!.length, ...rows.map((r) => r[i]!.text.length)));
   const fmt = (cells: Cell[]) => cells.map((x, i) => {
     const w = widths[i]!;
-    const padded = i < 2 || i === last ? pad(x.text, w) : lpad(x.text, w);
+    const padded = textual.has(i) ? pad(x.text, w) : lpad(x.text, w);
     return x.flagged ? padded.replace(x.text, em(x)) : padded;
   }).join('  ').trimEnd();
   const plain = (r: string[]) => fmt(r.map((text) => ({ text, flagged: false })));
   const lines = [plain(head1), plain(head2), plain(widths.map((w) => '-'.repeat(w))), ...rows.map(fmt)];
   const failures = results.corners.filter((c) => c.failure).map((c) => `  ${c.id}: ${c.failure!.kind}: ${c.failure!.message}`);
   if (failures.length) lines.push('', 'Failed corners:', ...failures);
+  const missed = results.corners.flatMap((c) => (c.checks ?? []).filter((k) => k.flip && k.fha.within).map((k) => `  ${c.id} ${describeCheck(k)}`));
+  if (missed.length) lines.push('', 'FHA missed this (FHA within, simulation outside):', ...missed);
   return `${lines.join('\n')}\n`;
+}
+
+/**
+ * Worst limit of a corner: the check using most of its bound (value / bound, or bound / value for
+ * a lower limit) in simulation, in FHA when not simulated; '*' when outside, 'F' when any check flips.
+ */
+function worstCells(c: CornerResult): Cell[] {
+  const w = worstCheck(c.checks);
+  const flips = (c.checks ?? []).some((k) => k.flip);
+  if (!w) return [{ text: '-', flagged: false }, { text: '', flagged: false }, { text: flips ? 'F' : '', flagged: flips }];
+  const side = w.source === 'sim' ? w.check.sim : w.check.fha;
+  const outside = side?.within === false;
+  const use = w.check.kind === 'state' ? (outside ? 'NO' : '') : showUsage(w.check, side);
+  return [{ text: `${w.check.limit}${w.source === 'fha' ? ' (FHA)' : ''}`, flagged: false }, { text: `${use}${outside ? '*' : ''}`, flagged: outside },
+    { text: flips ? 'F' : '', flagged: flips }];
 }
 
 /** One-paragraph summary printed after the table. */
 export function renderSummary(results: Results): string {
   const s = results.summary;
-  const parts = [`${s.corners} corners: ${s.ok} ok, ${s.diverged} diverged, ${s.failed} failed, ${s.notSettled} not settled`];
+  const parts = [`${s.corners} corners: ${s.ok} ok, ${s.outsideLimits ?? 0} outside limits, ${s.diverged} diverged, ${s.failed} failed, ${s.notSettled} not settled`];
+  if (s.flips) parts.push(`${s.flips} limit check(s) where FHA and simulation disagree`);
   if (s.predicted) parts.push(`${s.predicted} not simulated`);
   const head = `${parts.join(', ')}. Engine ${results.engine?.name ?? 'none'} ${results.engine?.version ?? ''}; ${s.simulations} operating points simulated.`;
   const worst = s.worst.slice(0, 5).map((w) => `  ${w.id} ${w.metric}${w.error !== null ? ` ${(w.error * 100).toFixed(1)} % (tolerance ${((w.tolerance ?? 0) * 100).toFixed(0)} %)` : ' status differs'}`);

@@ -3,6 +3,8 @@ import type { FhaResult } from '../fha/types.js';
 import type { ComparisonRow, Divergence } from '../compare/types.js';
 import type { CornerFailure, CornerResult, CornerStatus, Results, SimSummary } from './types.js';
 import { summarize } from './summary.js';
+import { outsideInSimulation } from '../limits/evaluate.js';
+import type { LimitCheck } from '../limits/types.js';
 import { TOOL_VERSION } from '../version.js';
 
 /**
@@ -21,9 +23,9 @@ export function cornerInputs(c: Corner): CornerResult['inputs'] {
  * A corner with its FHA prediction only (no simulation ran, or it was never started):
  * 'unreachable' when FHA finds no switching frequency that meets the output, else 'predicted'.
  */
-export function predicted(corner: Corner, fha: FhaResult): CornerResult {
+export function predicted(corner: Corner, fha: FhaResult, checks?: LimitCheck[]): CornerResult {
   return { id: corner.id, inputs: cornerInputs(corner), fha, sim: null, comparison: [], divergences: [],
-    status: fha.fs === null ? 'unreachable' : 'predicted' };
+    status: fha.fs === null ? 'unreachable' : 'predicted', ...(checks ? { checks } : {}) };
 }
 
 /** What a finished simulation of a corner measured, and how it compared with FHA. */
@@ -31,6 +33,8 @@ export interface Measured {
   sim: SimSummary;
   comparison: ComparisonRow[];
   divergences: Divergence[];
+  /** The corner checked against the design's limits (limits/evaluateLimits). */
+  checks?: LimitCheck[];
 }
 
 /** Facts besides the comparison that decide a simulated corner's status. */
@@ -60,18 +64,21 @@ export function statusOf(f: StatusFacts): CornerStatus {
 
 /** A simulated corner; its status follows `statusOf` (pass `outsideLimits` when limits were checked). */
 export function simulated(corner: Corner, fha: FhaResult, m: Measured, facts: { outsideLimits?: boolean } = {}): CornerResult {
-  const status = statusOf({ settled: m.sim.settled, diverged: m.divergences.length > 0, outsideLimits: facts.outsideLimits });
-  return { id: corner.id, inputs: cornerInputs(corner), fha, sim: m.sim, comparison: m.comparison, divergences: m.divergences, status };
+  const outsideLimits = facts.outsideLimits ?? outsideInSimulation(m.checks);
+  const status = statusOf({ settled: m.sim.settled, diverged: m.divergences.length > 0, outsideLimits });
+  return { id: corner.id, inputs: cornerInputs(corner), fha, sim: m.sim, comparison: m.comparison, divergences: m.divergences, status,
+    ...(m.checks ? { checks: m.checks } : {}) };
 }
 
 /**
  * A failed corner: keeps its reason and, when the simulation did finish but failed a later step
  * (e.g. regulation missed its target), what it measured.
  */
-export function failed(corner: Corner, fha: FhaResult, failure: CornerFailure, measured?: Measured): CornerResult {
+export function failed(corner: Corner, fha: FhaResult, failure: CornerFailure, measured?: Measured, checks?: LimitCheck[]): CornerResult {
   const f: CornerFailure = { kind: failure.kind, message: failure.message, ...(failure.detail ? { detail: failure.detail } : {}) };
+  const c = checks ?? measured?.checks;
   return { id: corner.id, inputs: cornerInputs(corner), fha, sim: measured?.sim ?? null, comparison: measured?.comparison ?? [],
-    divergences: measured?.divergences ?? [], status: 'failed', failure: f };
+    divergences: measured?.divergences ?? [], status: 'failed', failure: f, ...(c ? { checks: c } : {}) };
 }
 
 /** What the results envelope records besides the corners. */

@@ -15,6 +15,8 @@ export function summarize(corners: CornerResult[], worstCount = 10): ResultsSumm
     notSettled: count('not-settled'),
     predicted: count('predicted'),
     unreachable: count('unreachable'),
+    outsideLimits: count('outside-limits'),
+    flips: corners.reduce((s, c) => s + (c.checks ?? []).filter((x) => x.flip).length, 0),
     simulations: corners.reduce((s, c) => s + (c.sim ? c.sim.simulations : 0), 0),
     worst,
   };

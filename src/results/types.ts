@@ -3,8 +3,10 @@ import type { SimMetrics } from '../measure/types.js';
 import type { Corner } from '../corners/types.js';
 import type { ComparisonRow, Divergence } from '../compare/types.js';
 import type { IdealMetrics } from '../ideal/metrics.js';
+import type { LimitCheck } from '../limits/types.js';
 
 export type { ComparisonRow, Divergence } from '../compare/types.js';
+export type { LimitCheck, CheckSide, LimitName } from '../limits/types.js';
 
 export type CornerStatus = 'predicted' | 'unreachable' | 'ok' | 'diverged' | 'failed' | 'not-settled' | 'outside-limits';
 
@@ -52,6 +54,11 @@ export interface CornerResult {
   divergences: Divergence[];
   status: CornerStatus;
   failure?: CornerFailure;
+  /**
+   * The corner checked against the design's `limits` on FHA, the ideal model and the simulation
+   * (`region` always: capacitive operation is always outside). Absent in results written before limits existed.
+   */
+  checks?: LimitCheck[];
 }
 
 /** Downsampled waveforms of one corner's measurement window, kept for the report. */
@@ -72,6 +79,10 @@ export interface ResultsSummary {
   notSettled: number;
   predicted: number;
   unreachable: number;
+  /** Corners whose simulation is outside at least one limit (status outside-limits). */
+  outsideLimits: number;
+  /** Checks where FHA and simulation disagree on within/outside, over all corners. */
+  flips: number;
   /**
    * Operating points simulated to obtain these results (cached corners count what their first run
    * simulated), so a cached and an uncached run give the same file. What this run took from the
@@ -99,5 +110,7 @@ export interface BaselineReport {
   removed: string[];
   statusChanges: { id: string; from: CornerStatus; to: CornerStatus }[];
   moved: { id: string; metric: string; before: number; after: number; change: number; tolerance: number }[];
+  /** Limit checks within in the baseline and outside now (absent in reports written before limits existed). */
+  checksOutside?: { id: string; limit: string; before: number | boolean | string | null; after: number | boolean | string | null; bound: number | boolean | string }[];
   regressed: boolean;
 }

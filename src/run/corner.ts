@@ -6,6 +6,7 @@ import type { Waveforms } from '../measure/types.js';
 import type { CornerResult, SimSummary, WaveformExcerpt } from '../results/types.js';
 import { failed, simulated } from '../results/build.js';
 import { compareCorner } from '../compare/compare.js';
+import { evaluateLimits } from '../limits/evaluate.js';
 import { simulateSteady, WINDOW_CYCLES } from './steady.js';
 import { regulate } from './regulate.js';
 import { startPoint, type SeedMethod, type StartPoint } from './seed.js';
@@ -55,12 +56,12 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
     ({ cycles, runs } = steady);
   }
   if (!steady.ok || !steady.metrics) {
-    return { result: withIdeal(failed(corner, fha, steady.failure ?? { kind: 'engine', message: 'no result' }), ideal) };
+    return { result: withIdeal(failed(corner, fha, steady.failure ?? { kind: 'engine', message: 'no result' }, undefined, evaluateLimits(design, corner.vin, fha, null, ideal.ideal)), ideal) };
   }
   const sim: SimSummary = { ...steady.metrics, cycles, runs, simulations, settled: steady.settled, settleError: steady.settleError,
     chargeBalanceError: steady.chargeBalanceError, periodicityError: steady.periodicityError };
   const cmp = compareCorner(design, fha, steady.metrics, regulated, ideal.ideal);
-  const measured = { sim, comparison: cmp.rows, divergences: cmp.divergences };
+  const measured = { sim, comparison: cmp.rows, divergences: cmp.divergences, checks: evaluateLimits(design, corner.vin, fha, sim, ideal.ideal) };
   const result: CornerResult = withIdeal(regulationMet ? simulated(corner, fha, measured)
     : failed(corner, fha, { kind: 'regulation', message: `no switching frequency met ${design.output.voltage} V within 0.5 % in ${simulations} simulations (closest ${steady.metrics.vout.toPrecision(5)} V at ${(steady.fs / 1e3).toPrecision(5)} kHz)` }, measured), ideal);
   return { result, waveform: excerpt(corner.id, steady.waveforms as Waveforms, steady.windowStart, WINDOW_CYCLES) };

@@ -5,6 +5,7 @@ import type { CornerResult, Results, WaveformExcerpt } from '../results/types.js
 import { expandCorners, filterCorners } from '../corners/expand.js';
 import { predictCorner } from '../fha/predict.js';
 import { compareCorner } from '../compare/compare.js';
+import { evaluateLimits } from '../limits/evaluate.js';
 import { envelope, failed as failedCorner, predicted, simulated } from '../results/build.js';
 import { simulateCorner, type CornerOutcome } from './corner.js';
 import { startPoint, type StartPoint } from './seed.js';
@@ -54,10 +55,7 @@ export interface StudyOutput {
 
 /** FHA-only results (no engine): every corner predicted. */
 export function predictStudy(design: Design, only?: string): Results {
-  const corners = filterCorners(expandCorners(design), only).map((c) => {
-    const fha = predictCorner(design, c);
-    return withIdeal(predicted(c, fha), idealCorner(design, c, fha));
-  });
+  const corners = filterCorners(expandCorners(design), only).map((c) => predictedWithChecks(design, c));
   return envelope(design, corners, { engine: null });
 }
 
@@ -85,7 +83,8 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
       out = refreshComparison(design, corner, fha, ideal, out);
     } else {
       out = await simulateCorner(opts.engine, design, corner, fha, { signal: opts.signal, timeoutMs: opts.timeoutMs, start, ideal })
-        .catch((e: unknown): CornerOutcome => ({ result: withIdeal(failedCorner(corner, fha, { kind: 'measurement', message: e instanceof Error ? e.message : String(e) }), ideal) }));
+        .catch((e: unknown): CornerOutcome => ({ result: withIdeal(failedCorner(corner, fha, { kind: 'measurement', message: e instanceof Error ? e.message : String(e) }, undefined,
+          evaluateLimits(design, corner.vin, fha, null, ideal.ideal)), ideal) }));
       if (opts.signal?.aborted && out.result.status === 'failed') return; // interrupted, not a simulator failure
       if (key && out.result.failure?.kind !== 'timeout') await opts.cache!.set(key, out);
     }
@@ -97,7 +96,7 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
     if (!opts.signal?.aborted) throw e;
   });
   // a corner never started keeps its FHA prediction
-  const results: CornerResult[] = corners.map((c, i) => outcomes[i]?.result ?? predicted(c, predictCorner(design, c)));
+  const results: CornerResult[] = corners.map((c, i) => outcomes[i]?.result ?? predictedWithChecks(design, c));
   // not outcomes.some(): the array is sparse, and some() skips the holes of corners never started
   const incomplete = corners.some((_, i) => outcomes[i] === undefined);
   return {
@@ -113,7 +112,15 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
 /** A cached simulation is compared again with the current tolerances (compare: may have changed). */
 function refreshComparison(design: Design, corner: Corner, fha: CornerResult['fha'], ideal: IdealOutcome, out: CornerOutcome): CornerOutcome {
   const r = withIdeal(out.result, ideal);
-  if (!r.sim || r.status === 'failed') return { ...out, result: { ...r, fha } };
+  if (!r.sim || r.status === 'failed') return { ...out, result: { ...r, fha, checks: evaluateLimits(design, corner.vin, fha, r.sim, ideal.ideal) } };
   const cmp = compareCorner(design, fha, r.sim, corner.fs === null, ideal.ideal);
-  return { ...out, result: withIdeal({ ...r, ...simulated(corner, fha, { sim: r.sim, comparison: cmp.rows, divergences: cmp.divergences }) }, ideal) };
+  const checks = evaluateLimits(design, corner.vin, fha, r.sim, ideal.ideal);
+  return { ...out, result: withIdeal({ ...r, ...simulated(corner, fha, { sim: r.sim, comparison: cmp.rows, divergences: cmp.divergences, checks }) }, ideal) };
+}
+
+/** A corner with its FHA prediction, the ideal model and the FHA and ideal sides of its limit checks. */
+function predictedWithChecks(design: Design, c: Corner): CornerResult {
+  const fha = predictCorner(design, c);
+  const ideal = idealCorner(design, c, fha);
+  return withIdeal(predicted(c, fha, evaluateLimits(design, c.vin, fha, null, ideal.ideal)), ideal);
 }
