@@ -8,7 +8,7 @@ import type { Design } from './types.js';
 
 const demo = readFileSync(new URL('../../examples/demo.yaml', import.meta.url), 'utf8');
 /** The demo with its own limits section replaced by `limits` (appended at the end, so lines are predictable). */
-const base = demo.replace(/^limits:\n(?: .*\n)*/m, '').trimEnd();
+const base = demo.replace(/^limits:.*\n(?: .*\n)*/m, '').trimEnd();
 const BASE_LINES = base.split('\n').length;
 const withLimits = (limits: string): string => `${base}\nlimits:\n${limits}`;
 
