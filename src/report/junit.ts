@@ -24,7 +24,7 @@ function testcase(cls: string, name: string, o: Outcome): string {
 }
 
 const divLine = (d: CornerResult['divergences'][number]): string => {
-  const cause = (d as { cause?: string }).cause;
+  const cause = d.cause;
   return `${d.metric}: FHA ${fmt(d.fha)}, sim ${fmt(d.sim)}${d.error !== null ? `, error ${(d.error * 100).toFixed(2)} % (tolerance ${((d.tolerance ?? 0) * 100).toFixed(1)} %)` : ''}${d.unexpectedSign ? ' [sign contradicts FHA theory]' : ''}${cause ? ` [${cause}]` : ''} - ${d.reason}`;
 };
 

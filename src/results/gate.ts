@@ -12,8 +12,7 @@ export type FailOn = 'default' | 'divergence';
  * 'unexplained', or it has no cause (results without the ideal-model classification).
  */
 export function isUnexplained(d: Divergence): boolean {
-  const cause = (d as { cause?: string }).cause;
-  return cause === undefined || cause === 'unexplained';
+  return d.cause === undefined || d.cause === 'unexplained';
 }
 
 /** The divergences of a corner that fail the run under `failOn`. */
