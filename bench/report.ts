@@ -15,6 +15,7 @@ import { CAP_BALANCE_TARGET, CAP_RATIO_TARGET, capLines, capSummary, type CapCas
 import * as S from './report-sections.js';
 import { REGULATION_TOLERANCE } from '../src/run/regulate.js';
 import { fix, passFail, pct } from './util.js';
+import { idealLines, type IdealCase } from './ideal.js';
 
 export interface BenchData {
   machine: MachineInfo;
@@ -36,6 +37,8 @@ export interface BenchData {
   first: FirstPoint[];
   saveCost: SaveCost[];
   capacitor: CapCase;
+  /** Case 8, the ideal column (bench/ideal.ts). */
+  ideal?: IdealCase;
 }
 
 interface Target { name: string; target: string; figure: string; ok: boolean }
@@ -128,6 +131,7 @@ export function renderResults(d: BenchData): string {
     `## 7. Output capacitor: 470 uF against 10 mF (${d.capacitor.design}, system engine, model start, default settings)`, '',
     'Steady state needs the output capacitor charge-balanced (simulation.chargeBalanceTolerance) and the tank periodic, not only a steady Vout; a slow capacitor is brought to its equilibrium by a shooting step (src/run/shooting.ts). The extra corner is the demo at 340 V, 25 % load, fixed 80.51 kHz.', '',
     ...capLines(d.capacitor), '',
+    ...(d.ideal ? ['## 8. The ideal column (demo and charger, cost per corner and agreement with the simulation, both engines)', '', ...idealLines(d.ideal), ''] : []),
     '## Cost drivers in the run path (informational)', '',
     ...S.saveCostLines(d.saveCost), '',
     '## Why targets were missed', '',

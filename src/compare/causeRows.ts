@@ -20,11 +20,14 @@ export function applyCauses(rows: ComparisonRow[], sim: SimMetrics, ideal: SimMe
     if (r.verdict !== 'diverged') continue;
     const v = classifyCause(r.metric, r.sim, r.ideal, r.tolerance, { sim, ideal, deadTime });
     r.cause = v.cause;
+    if (GAIN_LIKE.has(r.metric)) {
+      const suspect = ideal ? v.cause === 'unexplained' : r.unexpectedSign === true && !(r.error !== null && r.error > 0 && sim.mode.includes('O'));
+      // FHA's fixed sign rule called this suspect, the ideal model (or the mode) says otherwise: drop that wording.
+      if (r.unexpectedSign && !suspect) r.reason = `FHA's rule of thumb for the sign of its error (below fr the real gain is higher, above fr lower) does not hold at this corner (mode ${sim.mode})`;
+      if (suspect) r.unexpectedSign = true;
+      else delete r.unexpectedSign;
+    }
     r.reason = r.reason ? `${r.reason}. ${capitalise(v.note)}` : capitalise(v.note);
-    if (!GAIN_LIKE.has(r.metric)) continue;
-    const suspect = ideal ? v.cause === 'unexplained' : r.unexpectedSign === true && !(r.error !== null && r.error > 0 && sim.mode.includes('O'));
-    if (suspect) r.unexpectedSign = true;
-    else delete r.unexpectedSign;
   }
 }
 
