@@ -3,8 +3,8 @@
 // of the idealised converter with the output held at a DC voltage, measured by the same code.
 // What the simulation adds (exponential diodes, diode capacitance, finite output capacitor and
 // ESR) is second order at these corners. Worst figures measured when this test was written
-// (bench/RESULTS.md case 8), ngspice-39 / embedded engine: Vout 0.40 % / 0.40 % at fixed-frequency
-// corners, regulated fs 0.88 % / 0.88 %, tank RMS 1.03 % / 1.35 %.
+// (bench/RESULTS.md case 8), ngspice-39 / embedded engine: Vout 0.39 % / 0.39 % at fixed-frequency
+// corners, regulated fs 0.73 % / 0.73 %, tank RMS 1.41 % / 1.41 %.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createNgspiceEngine, createWasmEngine } from '../../src/engine/index.js';
 import { runStudy } from '../../src/run/study.js';
