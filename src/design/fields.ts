@@ -89,6 +89,7 @@ export const SECTION_FIELDS = {
     gain: limit(0.03, 'Allowed relative difference between FHA and simulated tank gain.'),
     currents: limit(0.1, 'Allowed relative difference for currents (tank rms, magnetizing peak, turn-off current, ...).'),
     voltages: limit(0.1, 'Allowed relative difference for voltages (Cr peak, ...).'),
+    measured: limit(0.05, 'Allowed relative difference between the simulation and a measured prototype point (run --measured).'),
   },
   simulation: {
     accuracy: { kind: 'enum', values: ['fast', 'normal', 'fine'], default: 'normal', description: 'Simulation accuracy profile (time step and tolerances).' } as EnumSpec,

@@ -107,7 +107,7 @@ describe('compare by metric', () => {
   const withCompare = (lines: string): string => demo.replace(/^compare:\n(?: .*\n)*/m, `compare:\n${lines}\n`);
   it('keeps the group keys and accepts metrics by name and "off"', () => {
     const d = design(withCompare('  currents: 10%\n  magnetizingCurrentPeak: 30%\n  switchTurnOffCurrent: off\n  zvs: off'));
-    expect(d.compare).toEqual({ vout: 0.03, fs: 0.05, gain: 0.03, currents: 0.1, voltages: 0.1,
+    expect(d.compare).toEqual({ vout: 0.03, fs: 0.05, gain: 0.03, currents: 0.1, voltages: 0.1, measured: 0.05,
       metrics: { magnetizingCurrentPeak: 0.3, switchTurnOffCurrent: 'off', zvs: 'off' } });
   });
   it('a group set to off turns off its metrics that have no setting of their own', () => {

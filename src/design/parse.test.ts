@@ -34,7 +34,7 @@ describe('demo.yaml', () => {
       corners: [],
     });
     expect(d.tolerances).toEqual({ lr: 0.05, cr: 0.05, lm: 0.1, turnsRatio: 0, corners: 'nominal', samples: 100, seed: 1, distribution: 'uniform' });
-    expect(d.compare).toEqual({ vout: 0.03, fs: 0.05, gain: 0.03, currents: 0.1, voltages: 0.1 });
+    expect(d.compare).toEqual({ vout: 0.03, fs: 0.05, gain: 0.03, currents: 0.1, voltages: 0.1, measured: 0.05 });
     expect(d.simulation).toEqual({ accuracy: 'normal', settleTolerance: 0.001, chargeBalanceTolerance: 0.01, periodicityTolerance: 0.01, maxCycles: 2000, zvsThreshold: 0.05, confirm: 20 });
     expect(d.devices).toEqual({});
   });

@@ -98,6 +98,8 @@ export interface Design {
     gain: number;
     currents: number;
     voltages: number;
+    /** Simulation against a measured prototype point (`run --measured`). @default 0.05 */
+    measured: number;
     /**
      * Tolerances set for single metrics by name (a fraction, or 'off': reported, never flagged);
      * they override the group value. A group written as `off` lists each of its metrics here.

@@ -16,7 +16,7 @@ export function makeDesign(over: DeepPartial<Design> = {}): Design {
     output: { voltage: 52, capacitance: 100e-6, esr: 0.01 },
     operating: { vin: [400], load: [{ kind: 'ohm', value: 4 }], ratedPower: 676, frequency: [90e3], corners: [] },
     tolerances: { lr: 0, cr: 0, lm: 0, corners: 'nominal' },
-    compare: { vout: 0.03, fs: 0.05, gain: 0.03, currents: 0.1, voltages: 0.1 },
+    compare: { vout: 0.03, fs: 0.05, gain: 0.03, currents: 0.1, voltages: 0.1, measured: 0.05 },
     simulation: { accuracy: 'normal', settleTolerance: 0.001, chargeBalanceTolerance: 0.01, periodicityTolerance: 0.01, maxCycles: 2000, zvsThreshold: 0.05 },
     devices: {},
   };
