@@ -119,6 +119,7 @@ export function measure(w: Waveforms, window: MeasureWindow, opts?: MeasureOptio
     voutRipple: vo.max - vo.min,
     iout,
     pout,
+    ...(w.inputCurrent ? { inputPower: w.vin * spanStats(span, w.inputCurrent).avg } : {}),
     tankCurrentRms: tank.rms,
     tankCurrentPeak: Math.max(-tank.min, tank.max),
     magnetizingCurrentPeak: peakOf(w.magnetizingCurrent),

@@ -57,6 +57,8 @@ export interface Waveforms {
   outputCapCurrent: Float64Array;
   /** Secondary current referred to the primary, positive in the P interval (Lm clamped to +n V_rect). */
   secondaryCurrentReferred: Float64Array;
+  /** Current drawn from the input source (into the high-side drains, Coss included), A; optional. */
+  inputCurrent?: Float64Array;
 }
 
 /** Measurement window: whole switching cycles [tStart, tStart + cycles/fs]. */
@@ -84,6 +86,11 @@ export interface SimMetrics {
   iout: number;
   /** avg(vout^2) / load; without Waveforms.load, vout * iout, W. */
   pout: number;
+  /**
+   * Vin x avg(input current), W: the power the modelled circuit draws, so pout / inputPower is its
+   * efficiency with the conduction losses of the modelled parts only. Absent without Waveforms.inputCurrent.
+   */
+  inputPower?: number;
   tankCurrentRms: number;
   /** max |i_t|, A. */
   tankCurrentPeak: number;

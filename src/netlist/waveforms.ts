@@ -70,6 +70,8 @@ export function toWaveforms(design: Design, corner: Corner, fs: number, v: Vecto
     switches, diodes, vout: out,
     outputCapCurrent: map(len, (i) => rect[0]![i]! + rect[1]![i]! - out[i]! / corner.load),
     secondaryCurrentReferred: isecRef,
+    // the input source feeds the high-side drain(s): S1, and S3 of a full bridge
+    inputCurrent: fb ? map(len, (i) => switches[0]!.current[i]! + switches[2]!.current[i]!) : switches[0]!.current,
   } as Waveforms;
 }
 

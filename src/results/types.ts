@@ -4,6 +4,7 @@ import type { Corner } from '../corners/types.js';
 import type { ComparisonRow, Divergence } from '../compare/types.js';
 import type { IdealMetrics } from '../ideal/metrics.js';
 import type { LimitCheck } from '../limits/types.js';
+import type { MeasuredReport, MeasuredSummary } from '../measured/types.js';
 
 export type { ComparisonRow, Divergence } from '../compare/types.js';
 export type { LimitCheck, CheckSide, LimitName } from '../limits/types.js';
@@ -59,6 +60,10 @@ export interface CornerResult {
    * (`region` always: capacitive operation is always outside). Absent in results written before limits existed.
    */
   checks?: LimitCheck[];
+  /** 'measured' for a corner made from a measured prototype point (`run --measured`). */
+  source?: 'measured';
+  /** The measured point's values and the errors of each model against it. */
+  measured?: MeasuredSummary;
 }
 
 /** Downsampled waveforms of one corner's measurement window, kept for the report. */
@@ -102,6 +107,8 @@ export interface Results {
   corners: CornerResult[];
   summary: ResultsSummary;
   baseline?: BaselineReport;
+  /** Measured prototype points compared (`run --measured`). */
+  measured?: MeasuredReport;
 }
 
 export interface BaselineReport {

@@ -11,6 +11,7 @@ import { simulateCorner, type CornerOutcome } from './corner.js';
 import { startPoint, type StartPoint } from './seed.js';
 import { mapPool } from '../engine/pool.js';
 import { idealCorner, withIdeal, type IdealOutcome } from '../ideal/index.js';
+import { attachMeasured, measuredCorners, measuredReport, type MeasuredPoint } from '../measured/index.js';
 
 export interface StudyProgress {
   done: number;
@@ -37,6 +38,8 @@ export interface StudyOptions {
   cache?: CornerCache;
   onProgress?: (p: StudyProgress) => void;
   timeoutMs?: number;
+  /** Measured prototype points: each becomes a fixed-frequency corner beside the design's own. */
+  measured?: { file: string; points: readonly MeasuredPoint[] };
 }
 
 /** Facts of one run that are not part of the (deterministic) results: what came from the cache. */
@@ -65,7 +68,9 @@ export function predictStudy(design: Design, only?: string): Results {
  * are kept, the rest stay FHA-only and the results are marked incomplete.
  */
 export async function runStudy(design: Design, opts: StudyOptions): Promise<StudyOutput> {
-  const corners = filterCorners(expandCorners(design), opts.only);
+  const bench = measuredCorners(design, opts.measured?.points ?? []);
+  const points = new Map(bench.map((c, i) => [c.id, opts.measured!.points[i]]));
+  const corners = filterCorners([...expandCorners(design), ...bench], opts.only);
   const engineVersion = await opts.engine.version();
   const outcomes: (CornerOutcome | undefined)[] = new Array(corners.length);
   let done = 0;
@@ -96,11 +101,14 @@ export async function runStudy(design: Design, opts: StudyOptions): Promise<Stud
     if (!opts.signal?.aborted) throw e;
   });
   // a corner never started keeps its FHA prediction
-  const results: CornerResult[] = corners.map((c, i) => outcomes[i]?.result ?? predictedWithChecks(design, c));
+  const results: CornerResult[] = corners.map((c, i) => outcomes[i]?.result ?? predictedWithChecks(design, c))
+    .map((r) => (points.has(r.id) ? attachMeasured(r, points.get(r.id)!, design.compare.measured) : r));
   // not outcomes.some(): the array is sparse, and some() skips the holes of corners never started
   const incomplete = corners.some((_, i) => outcomes[i] === undefined);
+  const env = envelope(design, results, { engine: { name: opts.engine.name, version: engineVersion }, incomplete });
+  if (opts.measured) env.measured = measuredReport(env, opts.measured.file, design.compare.measured);
   return {
-    results: envelope(design, results, { engine: { name: opts.engine.name, version: engineVersion }, incomplete }),
+    results: env,
     waveforms: outcomes.flatMap((o) => (o?.waveform ? [o.waveform] : [])),
     run: {
       fromCache: corners.filter((_, i) => cached.has(i)).map((c) => c.id),
