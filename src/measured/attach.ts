@@ -17,7 +17,7 @@ export function attachMeasured(r: CornerResult, point: MeasuredPoint, tolerance:
     line, vin, fs, vout,
     ...defined({ iin, pin, tankCurrentRms, crVoltagePeak, switchTurnOffCurrent, note, efficiency }),
     simEfficiency,
-    errors: { fha: measuredErrors(point, values(r.fha)), ideal: measuredErrors(point, values((r as { ideal?: unknown }).ideal)), sim },
+    errors: { fha: measuredErrors(point, values(r.fha)), ideal: measuredErrors(point, values(r.ideal)), sim },
     tolerance, within,
   };
   return { ...r, source: 'measured', measured };

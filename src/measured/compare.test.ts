@@ -7,8 +7,8 @@ import { makeDesign } from '../../tests/support/design.js';
 const point = (p: Partial<MeasuredPoint>): MeasuredPoint => ({ line: 2, vin: 390, load: { kind: 'ampere', value: 10 }, fs: 98_000, vout: 24, ...p });
 
 describe('measured points against a model', () => {
-  it('gives (model - measured) / measured for the metrics the point holds', () => {
-    const e = measuredErrors(point({ vout: 24, tankCurrentRms: 2 }), { vout: 23.28, tankCurrentRms: 2.1, crVoltagePeak: 300 });
+  it('gives (measured - model) / model for the metrics the point holds', () => {
+    const e = measuredErrors(point({ vout: 23.28, tankCurrentRms: 2.1 }), { vout: 24, tankCurrentRms: 2, crVoltagePeak: 300 });
     expect(e!.vout).toBeCloseTo(-0.03, 12);
     expect(e!.tankCurrentRms).toBeCloseTo(0.05, 12);
     expect(e).not.toHaveProperty('crVoltagePeak');

@@ -4,7 +4,10 @@ import type { MeasuredPoint } from './types.js';
 export const MEASURED_METRICS = ['vout', 'tankCurrentRms', 'crVoltagePeak', 'switchTurnOffCurrent'] as const;
 export type MeasuredMetric = (typeof MEASURED_METRICS)[number];
 
-/** Relative error (model - measured) / |measured| per metric the point holds. */
+/**
+ * Relative gap (measured - model) / |model| per metric the point holds: -3 % means the bench
+ * read 3 % below the model.
+ */
 export type MeasuredErrors = Partial<Record<MeasuredMetric, number>>;
 
 /** A model's values for the measured metrics; missing or non-finite values give no error. */
@@ -17,8 +20,8 @@ export function measuredErrors(point: MeasuredPoint, model: ModelValues | null |
   for (const m of MEASURED_METRICS) {
     const meas = point[m];
     const v = model[m];
-    if (meas === undefined || typeof v !== 'number' || !Number.isFinite(v) || meas === 0) continue;
-    out[m] = (v - meas) / Math.abs(meas);
+    if (meas === undefined || typeof v !== 'number' || !Number.isFinite(v) || v === 0) continue;
+    out[m] = (meas - v) / Math.abs(v);
   }
   return out;
 }
@@ -42,7 +45,7 @@ export interface GapSample {
   fs: number;
   /** Output current at the point, A. */
   iout: number;
-  /** (sim - measured) / measured of Vout. */
+  /** (measured - sim) / sim of Vout. */
   error: number;
 }
 

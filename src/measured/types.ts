@@ -54,7 +54,7 @@ export interface MeasuredSummary {
    * switching, core, gate-drive or auxiliary losses), so it reads higher than the bench.
    */
   simEfficiency: number | null;
-  /** (model - measured) / measured per metric the point holds; null where the model has no values. */
+  /** (measured - model) / |model| per metric the point holds; null where the model has no values. */
   errors: { fha: MeasuredErrors | null; ideal: MeasuredErrors | null; sim: MeasuredErrors | null };
   /** compare.measured: the simulation misses the point when any |sim error| exceeds it. */
   tolerance: number;
