@@ -107,6 +107,7 @@ function program(): Command {
     .option('--keep-decks', 'keep the simulator work folders (system ngspice)')
     .option('--timeout <seconds>', 'wall-clock limit per simulator run', positiveInt)
     .option('--fail-on <what>', '"divergence": exit 1 on any divergence beyond tolerance (default: only on unexplained ones)')
+    .option('--measured <file>', 'CSV of points measured on a prototype (vin, load, fs, vout, ...): each is simulated at its fs and compared')
     .description('simulate every corner and compare with FHA')
     .addHelpText('after', `\nExit codes:\n${renderExitTable()}\n`)
     .action(async (file: string, o: RunFlags) => {

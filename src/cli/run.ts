@@ -14,6 +14,9 @@ import { renderRunTable, renderSummary } from '../report/table.js';
 import { compareBaseline, renderBaseline } from '../compare/baseline.js';
 import { renderHtmlReport } from '../report/html/index.js';
 import { createProgress } from './progress.js';
+import { loadMeasured } from './measured.js';
+import { renderMeasuredTable } from '../report/measured.js';
+import { measuredCorners } from '../measured/index.js';
 import { EXIT, exitCodeFor, UsageError } from './exit.js';
 import { runFailures, type FailOn } from '../results/gate.js';
 
@@ -32,6 +35,7 @@ export interface RunFlags {
   timeout?: number;
   /** 'divergence': also fail on any divergence beyond tolerance (default: only unexplained ones). */
   failOn?: string;
+  measured?: string;
 }
 
 async function readBaseline(file: string): Promise<Results> {
@@ -55,6 +59,7 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
   const baselineTol = Number(o.baselineTolerance);
   if (!(baselineTol >= 0 && baselineTol < 1)) throw new UsageError('--baseline-tolerance must be a fraction in [0, 1)');
   const baseline = o.baseline ? await readBaseline(o.baseline) : undefined;
+  const measured = o.measured ? await loadMeasured(o.measured) : undefined;
   // --jobs is a wish: each wasm worker needs ~0.5 GB, so never start more than free memory holds
   const limit = maxJobs(o.engine);
   if (o.jobs !== undefined && o.jobs > limit) {
@@ -90,13 +95,14 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
       throw e;
     }
     // started before the first corner, so a log shows at once how much work is coming
-    const progress = createProgress(process.stderr, filterCorners(expandCorners(design), o.only).length);
+    const planned = filterCorners([...expandCorners(design), ...measuredCorners(design, measured?.points ?? [])], o.only).length;
+    const progress = createProgress(process.stderr, planned);
     progress.start();
     const { results, waveforms, run } = await runStudy(design, {
       engine, jobs, only: o.only, signal: controller.signal,
       cache: o.cache ? createFileCache(o.cacheDir) : undefined,
       timeoutMs: o.timeout ? o.timeout * 1000 : undefined,
-      onProgress: (p) => progress.update(p),
+      onProgress: (p) => progress.update(p), measured,
     });
     progress.end();
     if (baseline) results.baseline = compareBaseline(results, baseline, o.baseline!, baselineTol);
@@ -112,6 +118,7 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
     await writeFilesAtomic(files);
     process.stdout.write(renderRunTable(results, { color: Boolean(process.stdout.isTTY) && !process.env['NO_COLOR'] }));
     process.stdout.write(`\n${renderSummary(results)}`);
+    process.stdout.write(renderMeasuredTable(results));
     if (results.baseline) process.stdout.write(renderBaseline(results.baseline));
     process.stdout.write(`wrote ${files.map((f) => f.path).join(', ')}\n`);
     if (o.cache) process.stderr.write(`cache: ${run.fromCache.length} of ${results.corners.length} corners from ${o.cacheDir}; ${run.simulated} operating points simulated now\n`);

@@ -81,22 +81,24 @@ export const PATTERN_CORRELATION = 0.8;
  * resonant elements (Lm, Cr, Lr) because the gain curve's shape is set by them; one that follows
  * the load points at the load-dependent drops the models under-state (rectifier forward drop,
  * winding, switch and trace resistances); a uniform offset points at the turns ratio or at the
- * instruments. Needs the gaps to exceed `tolerance` somewhere; returns null otherwise.
+ * instruments. A gap counts from a fifth of `tolerance` (compare.measured): a pattern is worth
+ * naming before any point fails. Returns null when there is none.
  */
 export function gapHint(samples: readonly GapSample[], tolerance: number): GapHint | null {
-  if (samples.length === 0 || !samples.some((s) => Math.abs(s.error) > tolerance)) return null;
+  const significant = tolerance / 5;
+  if (samples.length === 0 || !samples.some((s) => Math.abs(s.error) > significant)) return null;
   const err = samples.map((s) => s.error);
   if (samples.length >= 3) {
     const rf = pearson(samples.map((s) => Math.log(s.fs)), err);
     const rl = pearson(samples.map((s) => s.iout), err);
     const spread = Math.max(...err) - Math.min(...err);
-    if (spread > tolerance && Math.max(Math.abs(rf), Math.abs(rl)) >= PATTERN_CORRELATION) {
+    if (spread > significant && Math.max(Math.abs(rf), Math.abs(rl)) >= PATTERN_CORRELATION) {
       return Math.abs(rf) >= Math.abs(rl)
         ? { pattern: 'frequency', strength: rf, message: 'the gap follows the switching frequency: check Lm and Cr (and Lr) against their measured values; the gain curve\'s shape is set by them' }
         : { pattern: 'load', strength: rl, message: 'the gap follows the load: check the rectifier forward drop and the winding, switch and trace resistances, which the models under-state at high current' };
     }
   }
   const mean = err.reduce((a, b) => a + b, 0) / err.length;
-  if (Math.abs(mean) <= tolerance) return null;
+  if (Math.abs(mean) <= significant) return null;
   return { pattern: 'offset', strength: mean, message: 'a uniform offset: check the turns ratio and the calibration of the probes and meters' };
 }

@@ -35,6 +35,11 @@ describe('parseMeasured', () => {
     expect(p[1].vin).toBe(410);
   });
 
+  it('skips whole-line # comments, keeping line numbers and a # inside a note', () => {
+    const p = points(parseMeasured('# bench log, unit 2\nvin,load,fs,vout,note\n# warm-up\n390 V,50%,99 kHz,24 V,probe #3\n'));
+    expect(p).toEqual([{ line: 4, vin: 390, load: { kind: 'percent', value: 0.5 }, fs: 99_000, vout: 24, note: 'probe #3' }]);
+  });
+
   it('names a missing required column, and suggests the intended one for a misspelt header', () => {
     const pr = problems(parseMeasured('vin,lod,fs\n390 V,50%,90 kHz\n'));
     expect(pr).toContainEqual({ line: 1, column: 5, field: 'lod', message: 'unknown column; did you mean "load"?' });

@@ -22,7 +22,8 @@ type Record_ = { record: string[]; raw: string; line: number };
  * `tankCurrentRms`, `crVoltagePeak`, `switchTurnOffCurrent`, `note`. Cells use the design
  * file's engineering notation (`390 V`, `98.5 kHz`, `50%`); a header may carry a unit in brackets
  * (`vin [V]`) and then a bare number in that column takes it. Comma or semicolon delimiters (the
- * one the header uses), a UTF-8 byte-order mark and empty lines are accepted. Every bad cell is
+ * one the header uses), a UTF-8 byte-order mark, empty lines and whole-line `#` comments are
+ * accepted. Every bad cell is
  * reported, each with its line and character column.
  */
 export function parseMeasured(text: string): MeasuredParse {
@@ -31,7 +32,7 @@ export function parseMeasured(text: string): MeasuredParse {
   const delimiter = guessDelimiter(body);
   let records: Record_[];
   try {
-    const parsed = parseCsv(body, { delimiter, record_delimiter: '\n', raw: true, relax_column_count: true, skip_empty_lines: true, to: MAX_ROWS + 2 }) as unknown as { record: string[]; raw: string }[];
+    const parsed = parseCsv(body, { delimiter, record_delimiter: '\n', comment: '#', comment_no_infix: true, raw: true, relax_column_count: true, skip_empty_lines: true, to: MAX_ROWS + 2 }) as unknown as { record: string[]; raw: string }[];
     records = withLines(parsed);
   } catch (e) {
     const err = e as { lines?: number; message?: string };
@@ -55,7 +56,7 @@ function fail(problems: MeasuredProblem[]): MeasuredParse {
 
 /** The delimiter the header row uses: the more frequent of `,` and `;` outside quotes. */
 function guessDelimiter(text: string): ',' | ';' {
-  const firstLine = text.split('\n').find((l) => l.trim() !== '') ?? '';
+  const firstLine = text.split('\n').find((l) => l.trim() !== '' && !l.trimStart().startsWith('#')) ?? '';
   let commas = 0;
   let semis = 0;
   let quoted = false;
@@ -86,7 +87,7 @@ function fieldColumns(raw: string, delimiter: string): number[] {
 function withLines(parsed: { record: string[]; raw: string }[]): Record_[] {
   let before = 0;
   return parsed.map((p) => {
-    const leading = /^(?:[ \t]*\n)*/.exec(p.raw)![0];
+    const leading = /^(?:[ \t]*(?:#[^\n]*)?\n)*/.exec(p.raw)![0];
     const line = before + 1 + (leading.match(/\n/g)?.length ?? 0);
     before += p.raw.match(/\n/g)?.length ?? 0;
     return { record: p.record, raw: p.raw.slice(leading.length), line };

@@ -32,7 +32,7 @@ export function renderFhaTable(results: Results): string {
   return notes.length ? `${out}\nNotes:\n${notes.join('\n')}\n` : out;
 }
 
-function grid(head: string[], rows: string[][]): string {
+export function grid(head: string[], rows: string[][]): string {
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
   const line = (r: string[]) => r.map((x, i) => (i === 0 ? pad(x, widths[i]!) : lpad(x, widths[i]!))).join('  ').trimEnd();
   return [line(head), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)].join('\n') + '\n';
