@@ -72,10 +72,23 @@ export function renderJunit(results: Results, opts: JunitOptions = {}): string {
       const ko = checkOutcome(c, k);
       cases.push({ xml: testcase(`${cls}.limits`, `${c.id}: ${k.limit}`, ko), kind: ko.kind });
     }
+    if (c.measured) {
+      const mo = measuredOutcome(c);
+      cases.push({ xml: testcase(`${cls}.measured`, `${c.id}: vs bench (line ${c.measured.line})`, mo), kind: mo.kind });
+    }
   }
   const n = (k: Outcome['kind']) => cases.filter((x) => x.kind === k).length;
   const counts = `tests="${cases.length}" failures="${n('failure')}" errors="${n('error')}"`;
   return `<?xml version="1.0" encoding="UTF-8"?>\n<testsuites ${counts}>\n<testsuite name="${xmlEscape(`tankcheck ${results.design.name}`)}" ${counts} skipped="${n('skipped')}">\n${cases.map((x) => x.xml).join('\n')}\n</testsuite>\n</testsuites>\n`;
+}
+
+/** A measured point's case: a failure when the simulation misses it by more than compare.measured. */
+function measuredOutcome(c: CornerResult): Outcome {
+  const m = c.measured!;
+  if (m.within === null) return { kind: 'skipped', message: 'not simulated' };
+  const gaps = Object.entries(m.errors.sim ?? {}).map(([k, e]) => `${k}: measured ${fmt((m as unknown as Record<string, number>)[k])}, sim ${fmt((c.sim as unknown as Record<string, number>)[k])}, gap ${(e * 100).toFixed(2)} %`);
+  return m.within ? { kind: 'pass', out: gaps.join('\n') }
+    : { kind: 'failure', message: `simulation misses the measured point by more than ${(m.tolerance * 100).toFixed(1)} %`, text: gaps.join('\n') };
 }
 
 function fmt(v: unknown): string {

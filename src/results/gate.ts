@@ -2,7 +2,7 @@ import type { CornerResult, Divergence, Results } from './types.js';
 
 /**
  * What makes a run fail (exit code 1). 'default': a limit outside in simulation, an unexplained
- * divergence, a corner not settled, a baseline regression. 'divergence': as before limits existed,
+ * divergence, a corner not settled, a measured point the simulation misses, a baseline regression. 'divergence': as before limits existed,
  * any divergence beyond tolerance as well (`--fail-on divergence`).
  */
 export type FailOn = 'default' | 'divergence';
@@ -28,6 +28,7 @@ export function cornerFailures(c: CornerResult, failOn: FailOn = 'default'): str
   if (outside.length && c.status !== 'failed') out.push(`outside limits in simulation: ${outside.join(', ')}`);
   const div = c.status === 'failed' ? [] : failingDivergences(c, failOn);
   if (div.length) out.push(`${failOn === 'divergence' ? '' : 'unexplained '}divergence: ${div.map((d) => d.metric).join(', ')}`);
+  if (c.measured?.within === false) out.push(`simulation misses the measured point (line ${c.measured.line}) by more than ${(c.measured.tolerance * 100).toFixed(1)} %`);
   return out;
 }
 
