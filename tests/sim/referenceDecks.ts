@@ -3,6 +3,7 @@
 // here restate each deck's element values (see shared/reference/README.md), nothing more.
 import { readFileSync } from 'node:fs';
 import type { Design, Inverter, Rectifier } from '../../src/design/types.js';
+import type { TdParams } from '../../src/tdmodel/types.js';
 import { makeDesign } from '../support/design.js';
 import { sharedFile } from '../support/shared.js';
 
@@ -85,4 +86,20 @@ export function readRecorded(): { values: Map<string, Record<string, number>>; v
     values.set(deck, row);
   }
   return { values, versions };
+}
+
+/** kT/q at 300.15 K, V (CODATA 2018 constants). */
+const VT = (1.380649e-23 * 300.15) / 1.602176634e-19;
+
+/**
+ * Ideal time-domain model parameters of a reference deck's circuit. The model's diode is VF + rd i:
+ * VF is the reference diode's drop (Is = 1e-9 rated current, N = 1.4925214) at the output current
+ * `io`, A; rd its 5 mohm.
+ */
+export function referenceTdParams(c: ReferenceCase, io: number, fs = c.fs): TdParams {
+  const is = (c.ratedPower / c.voltage) * 1e-9;
+  return {
+    inverter: c.inverter, rectifier: c.rectifier, vin: 400, fs, lr: 47e-6, cr: 39e-9, lm: 235e-6, n: 8,
+    coss: 300e-12, deadTime: 200e-9, vf: 1.4925214 * VT * Math.log(io / is + 1), rd: 0.005, rdsOn: 0.05,
+  };
 }
