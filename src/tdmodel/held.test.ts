@@ -63,17 +63,6 @@ describe('held output', () => {
     expect(Math.abs(warm.seed.ir - cold.seed.ir)).toBeLessThan(1e-9);
   });
 
-  it('seed: half-wave symmetry and rectifier currents are consistent with the state (common practice)', () => {
-    const r = solveSteadyState(params({ fs: 130e3 }), loadForQ(params(), 0.5));
-    expect(r.mode).toBe('NP');
-    expect(r.seed.iSecPrimary).toBeCloseTo(r.seed.ir - r.seed.im, 12);
-    expect(r.seed.iSecondary).toBeCloseTo(4 * r.seed.iSecPrimary, 12);
-    expect(r.seed.iDiodeN).toBeCloseTo(-r.seed.iSecondary, 12); // N still conducts at the turn-on
-    expect(r.seed.iDiodeP).toBe(0);
-    expect(r.seed.vNode).toEqual([0]);
-    expect(r.turnOffCurrent).toBeCloseTo(-r.seed.ir, 12);
-  });
-
   it('rejects invalid parameters, listing every problem', () => {
     expect(() => solveHeldOutput(params({ lr: 0, n: -1, deadTime: 1e-5 }), 10)).toThrow(/lr must be > 0.*n must be > 0.*deadTime/);
   });
