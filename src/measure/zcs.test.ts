@@ -66,9 +66,14 @@ describe('rectifier ZCS per conduction interval (docs/method.md#zcs, #zvs)', () 
     expect(modeOfWindow(w, span, spanPeak(span, w.secondaryCurrentReferred), 0.02, 0.02)).toBe('PON');
   });
 
-  it('no conduction: no intervals, zcs true, ratio 0', () => {
-    const w = resonantSet({ vin: 400, lr: 50e-6, cr: 50e-9, lm: 250e-6, n: 4, load: 4 });
-    expect(zcsIntervals(w, windowSpan(w, { tStart: 2 / w.fs, cycles: 2 }), 0)).toEqual([]);
-    expect(summarizeZcs([], 0.05)).toEqual({ zcs: true, zcsRatio: 0 });
+  it('no conduction: with every diode current zero there are no intervals, zcs true, ratio 0', () => {
+    const base = resonantSet({ vin: 400, lr: 50e-6, cr: 50e-9, lm: 250e-6, n: 4, load: 4 });
+    const w: Waveforms = { ...base, diodes: base.diodes.map((d) => ({ ...d, current: new Float64Array(d.current.length) })) };
+    const span = windowSpan(w, { tStart: 2 / w.fs, cycles: 2 });
+    // the same set with its real diode currents has 4 intervals in 2 cycles: the check can fail
+    expect(zcsIntervals(base, span, level(base))).toHaveLength(4);
+    // measure() passes level 0 when no diode conducts; a positive level must not find any either
+    for (const lv of [0, 1e-3]) expect(zcsIntervals(w, span, lv)).toEqual([]);
+    expect(summarizeZcs(zcsIntervals(w, span, 0), 0.05)).toEqual({ zcs: true, zcsRatio: 0 });
   });
 });

@@ -119,7 +119,12 @@ describe('HTML report in headless Chromium', () => {
     await page.goto(fileUrl);
     mkdirSync(new URL('../../test-output/', import.meta.url), { recursive: true });
     const png = await page.screenshot({ path: new URL('../../test-output/report.png', import.meta.url).pathname, fullPage: true });
-    expect(png.length).toBeGreaterThan(50_000);
+    // a PNG of the whole page: signature, then IHDR width and height (bytes 16-23, big-endian)
+    expect(png.subarray(1, 4).toString('latin1')).toBe('PNG');
+    const height = (await page.evaluate('document.documentElement.scrollHeight')) as number;
+    expect(png.readUInt32BE(16)).toBe(page.viewportSize()!.width);
+    expect(png.readUInt32BE(20)).toBe(height);
+    expect(height).toBeGreaterThan(page.viewportSize()!.height); // the report is longer than one screen
   });
 
   it('opens a 200-corner report and draws the deferred waveform figures on demand', async () => {

@@ -31,7 +31,10 @@ describe('tankcheck fha and init', () => {
     expect(r.stdout.split('\n').filter((l) => /^v\d/.test(l))).toHaveLength(6);
     const results = JSON.parse(readFileSync(json, 'utf8'));
     expect(results.schema).toBe('tankcheck/results@1');
-    expect(results.corners[0].fha.gain).toBeGreaterThan(1);
+    // regulated FHA hits the target gain exactly: n (Vo + VF) / Vin_eff = 8 (24 + 0.5) / 170 at
+    // 340 V (the conversion ratio of Steigerwald 1988 / Erickson & Maksimovic ch. 19, from memory)
+    const low = results.corners.find((c: { id: string }) => c.id === 'v340_100pct_reg_nom');
+    expect(low.fha.gain).toBeCloseTo((8 * 24.5) / 170, 9);
   });
 
   it('an invalid design exits 2, names every problem with file, path and line, and writes nothing', async () => {
