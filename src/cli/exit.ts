@@ -16,7 +16,7 @@ export const EXIT = {
 /** The one exit-code table: README "Exit codes" and `tankcheck run --help` show it. */
 export const EXIT_TABLE: readonly { code: number; meaning: string }[] = [
   { code: EXIT.ok, meaning: 'every simulated corner settled and is within limits; no unexplained divergence; no baseline regression' },
-  { code: EXIT.diverged, meaning: 'a limit outside in simulation, an unexplained divergence (any divergence with --fail-on divergence), a corner not settled, a measured point the simulation misses (run --measured), or a baseline regression' },
+  { code: EXIT.diverged, meaning: 'a limit outside in simulation, an unexplained divergence (any divergence with --fail-on divergence), a corner not settled, a regulated target the simulation cannot reach, a measured point the simulation misses (run --measured), or a baseline regression' },
   { code: EXIT.invalid, meaning: 'bad input: design file problems (file:line:col), bad options, unreadable baseline; nothing written' },
   { code: EXIT.failed, meaning: 'at least one corner failed to simulate (the others are still reported)' },
   { code: EXIT.engineUnavailable, meaning: 'the simulation engine could not be started' },
@@ -32,7 +32,7 @@ export function renderExitTable(): string {
 /**
  * Exit code of a finished study: interruption, then failed corners, then the run's checks
  * (results/gate.ts `runFailures`: limits outside in simulation, unexplained divergences, or any
- * divergence with failOn 'divergence', corners not settled, baseline regression).
+ * divergence with failOn 'divergence', corners not settled or unreachable in simulation, baseline regression).
  */
 export function exitCodeFor(results: Results, failOn: FailOn = 'default'): number {
   if (results.incomplete) return EXIT.interrupted;

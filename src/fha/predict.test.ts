@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { predictCorner, tankConstants } from './predict.js';
+import { deadTimeZvs, predictCorner, tankConstants } from './predict.js';
 import { expandCorners } from '../corners/expand.js';
 import { makeDesign } from '../../tests/support/design.js';
 import { readChecks } from '../../tests/support/checks.js';
@@ -121,5 +121,31 @@ describe('stresses at fs = fr (docs/method.md#tank-currents, #diodes, #output-ri
     expect(ct.diodeReverseVoltage!).toBeCloseTo(2 * ct.vout! + 0.5, 9);
     const fb = only(makeDesign({ topology: { inverter: 'half-bridge', rectifier: 'full-bridge' }, rectifier: { forwardVoltage: 0.5, resistance: 0 } })).fha;
     expect(fb.diodeReverseVoltage!).toBeCloseTo(fb.vout! + 0.5, 9);
+  });
+});
+
+describe('dead time against the switching period (ZVS verdict)', () => {
+  const fs = 100e3;
+  it('half the period or more: no ZVS, with the reason', () => {
+    const w: string[] = [];
+    expect(deadTimeZvs(5e-6, fs, 1, w)).toBe(false);
+    expect(w[0]).toMatch(/not shorter than half the switching period at 100.0 kHz \(5.00 us\)/);
+  });
+  it('over 10 % of the period: warns with the fundamental factor sin(x)/x, x = pi fs td', () => {
+    // x = pi 0.2 -> sin(x)/x = 0.9355 (closed form of the trapezoid's fundamental)
+    const w: string[] = [];
+    expect(deadTimeZvs(2e-6, fs, 1.5, w)).toBe(true);
+    expect(w[0]).toMatch(/20.0 % of the period .* = 0\.9355/);
+  });
+  it('the current reverses phase / (2 pi fs) after the centre of the dead time: td must stay below phase / (pi fs)', () => {
+    const phase = 0.3; // rad: reversal after 0.3 / (pi 100 kHz) = 0.955 us of dead time
+    expect(deadTimeZvs(0.9e-6, fs, phase, [])).toBe(true);
+    const w: string[] = [];
+    expect(deadTimeZvs(1.0e-6, fs, phase, w)).toBe(false);
+    expect(w.at(-1)).toMatch(/outlasts the 0.955 us before the tank current reverses/);
+  });
+  it('a 6 us dead time on a 78-114 kHz design never gets a ZVS yes from FHA', () => {
+    const d = makeDesign({ switches: { deadTime: 6e-6 }, operating: { frequency: [78e3, 99e3, 114e3] } });
+    for (const c of expandCorners(d)) expect(predictCorner(d, c).zvs).toBe(false);
   });
 });

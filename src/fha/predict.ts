@@ -113,9 +113,10 @@ export function predictCorner(design: Design, corner: Corner): FhaResult {
   if (region === 'inductive' && fn > 1 && design.tank.lr * iOff ** 2 < 2 * design.switches.coss * corner.vin ** 2) {
     warnings.push('above resonance only Lr drives the dead-time transition: its energy is below what the switch capacitances need (docs/method.md#zvs)');
   }
+  const zvsTime = deadTimeZvs(design.switches.deadTime, fs, phase, warnings);
   return result(common, {
     fs, fn, gain, vout, iout, region, phase,
-    zvs: region === 'inductive' && iOff >= zvsRequiredCurrent,
+    zvs: region === 'inductive' && iOff >= zvsRequiredCurrent && zvsTime,
     zvsMargin: iOff - zvsRequiredCurrent,
     zcs: fs <= fr,
     tankCurrentRms: irRms,
@@ -131,6 +132,38 @@ export function predictCorner(design: Design, corner: Corner): FhaResult {
     diodeReverseVoltage: design.topology.rectifier === 'center-tapped' ? 2 * vout + vf : vout + vf,
     outputRippleCurrentRms: Math.sqrt(Math.PI ** 2 / 8 - 1) * iout,
   }, warnings);
+}
+
+/**
+ * Dead time against the (given or solved) switching period, for the ZVS verdict; pushes warnings.
+ * - The dead time must be shorter than half the period (the rule of the fixed-frequency design
+ *   check): otherwise the bridge never conducts and there is no ZVS to speak of.
+ * - Above 10 % of the period the bridge fundamental shrinks by sin(pi fs td) / (pi fs td) (a
+ *   trapezoid instead of a square; docs/method.md#fha-inverter), which FHA's gain leaves out: warn.
+ * - The tank current lags the fundamental by the impedance phase, so it reverses phase / (2 pi fs)
+ *   after the fundamental's zero crossing, which sits in the middle of the dead time. The incoming
+ *   switch's gate edge comes td / 2 after it: ZVS needs td < phase / (pi fs), otherwise the current
+ *   swings the node back before the edge (docs/method.md#zvs, condition 4).
+ * Returns whether the dead time allows ZVS.
+ */
+export function deadTimeZvs(td: number, fs: number, phase: number, warnings: string[]): boolean {
+  if (!(td > 0)) return true;
+  const us = (t: number) => `${(t * 1e6).toPrecision(3)} us`;
+  const khz = `${(fs / 1e3).toPrecision(4)} kHz`;
+  if (td >= 1 / (2 * fs)) {
+    warnings.push(`dead time ${us(td)} is not shorter than half the switching period at ${khz} (${us(1 / (2 * fs))}): the bridge cannot run there, no ZVS`);
+    return false;
+  }
+  if (td * fs > 0.1) {
+    const x = Math.PI * fs * td;
+    warnings.push(`dead time ${us(td)} is ${(td * fs * 100).toPrecision(3)} % of the period at ${khz}; the bridge fundamental shrinks by sin(pi fs td)/(pi fs td) = ${(Math.sin(x) / x).toPrecision(4)}, which FHA's gain leaves out`);
+  }
+  const reversal = phase > 0 ? phase / (Math.PI * fs) : 0;
+  if (td >= reversal) {
+    warnings.push(`dead time ${us(td)} outlasts the ${us(reversal)} before the tank current reverses at ${khz} (phase ${(phase * 180 / Math.PI).toFixed(1)} deg): no ZVS`);
+    return false;
+  }
+  return true;
 }
 
 type Common = Pick<FhaResult, 'fr' | 'fp' | 'zr' | 'rac' | 'q' | 'ln' | 'gainTarget' | 'zvsRequiredCurrent' | 'fsZeroPhase' | 'gainAtZeroPhase' | 'fsPeakGain' | 'peakGain'>;

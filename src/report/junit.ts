@@ -31,6 +31,10 @@ const divLine = (d: CornerResult['divergences'][number]): string => {
 /** The corner's own test case: the simulation ran, settled and has no divergence that fails the run. */
 function cornerOutcome(c: CornerResult, failOn: FailOn): Outcome {
   if (c.status === 'failed') return { kind: 'error', message: `${c.failure?.kind ?? 'failed'}: ${c.failure?.message ?? ''}`, text: c.failure?.detail ?? '' };
+  if (c.status === 'unreachable' && c.sim) {
+    // simulated and found out of reach: a failed design check with its reason, not a tool error
+    return { kind: 'failure', message: 'unreachable', text: [c.failure?.message ?? 'target output unreachable', ...c.divergences.map((d) => `${d.metric}: ${d.reason}`)].join('\n') };
+  }
   if (c.status === 'predicted' || c.status === 'unreachable') return { kind: 'skipped', message: 'not simulated' };
   const failing = failingDivergences(c, failOn);
   const lines = failing.map(divLine);

@@ -108,10 +108,12 @@ export function renderRunTable(results: Results, opts: TableOptions = {}): strin
   }).join('  ').trimEnd();
   const plain = (r: string[]) => fmt(r.map((text) => ({ text, flagged: false })));
   const lines = [plain(head1), plain(head2), plain(widths.map((w) => '-'.repeat(w))), ...rows.map(fmt)];
-  const failures = results.corners.filter((c) => c.failure).map((c) => `  ${c.id}: ${c.failure!.kind}: ${c.failure!.message}`);
+  const failures = results.corners.filter((c) => c.failure && c.status !== 'unreachable').map((c) => `  ${c.id}: ${c.failure!.kind}: ${c.failure!.message}`);
   if (failures.length) lines.push('', 'Failed corners:', ...failures);
   const missed = results.corners.flatMap((c) => (c.checks ?? []).filter((k) => k.flip && k.fha.within).map((k) => `  ${c.id} ${describeCheck(k)}`));
   if (missed.length) lines.push('', 'FHA missed this (FHA within, simulation outside):', ...missed);
+  const unreachable = results.corners.filter((c) => c.failure && c.status === 'unreachable').map((c) => `  ${c.id}: ${c.failure!.message}`);
+  if (unreachable.length) lines.push('', 'Unreachable targets:', ...unreachable);
   return `${lines.join('\n')}\n`;
 }
 
@@ -135,6 +137,7 @@ export function renderSummary(results: Results): string {
   const s = results.summary;
   const parts = [`${s.corners} corners: ${s.ok} ok, ${s.outsideLimits ?? 0} outside limits, ${s.diverged} diverged, ${s.failed} failed, ${s.notSettled} not settled`];
   if (s.flips) parts.push(`${s.flips} limit check(s) where FHA and simulation disagree`);
+  if (s.unreachable) parts.push(`${s.unreachable} unreachable`);
   if (s.predicted) parts.push(`${s.predicted} not simulated`);
   const head = `${parts.join(', ')}. Engine ${results.engine?.name ?? 'none'} ${results.engine?.version ?? ''}; ${s.simulations} operating points simulated.`;
   const worst = s.worst.slice(0, 5).map((w) => `  ${w.id} ${w.metric}${w.error !== null ? ` ${(w.error * 100).toFixed(1)} % (tolerance ${((w.tolerance ?? 0) * 100).toFixed(0)} %)` : ' status differs'}`);

@@ -24,6 +24,8 @@ export function failingDivergences(c: CornerResult, failOn: FailOn = 'default'):
 export function cornerFailures(c: CornerResult, failOn: FailOn = 'default'): string[] {
   const out: string[] = [];
   if (c.status === 'not-settled') out.push('not settled');
+  // simulated and out of reach: a design verdict (FHA-only results carry no sim and do not count)
+  if (c.status === 'unreachable' && c.sim) out.push(`unreachable: ${c.failure?.message ?? 'target above the simulated peak gain'}`);
   const outside = (c.checks ?? []).filter((x) => x.sim?.within === false).map((x) => x.limit);
   if (outside.length && c.status !== 'failed') out.push(`outside limits in simulation: ${outside.join(', ')}`);
   const div = c.status === 'failed' ? [] : failingDivergences(c, failOn);

@@ -36,6 +36,12 @@ export interface SimSummary extends SimMetrics {
   chargeBalanceError?: number;
   /** Tank periodicity error (tank current, Cr voltage; relative to their peaks). */
   periodicityError?: number;
+  /**
+   * Regulated corners reported `unreachable`: the highest output the frequency search simulated
+   * (the simulated peak-gain point, to the search's resolution), its switching frequency and region.
+   * The metrics above are measured there.
+   */
+  closest?: { vout: number; fs: number; region: 'inductive' | 'capacitive' };
 }
 
 export interface CornerResult {

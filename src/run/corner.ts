@@ -8,7 +8,9 @@ import { failed, simulated } from '../results/build.js';
 import { compareCorner } from '../compare/compare.js';
 import { evaluateLimits } from '../limits/evaluate.js';
 import { simulateSteady, WINDOW_CYCLES } from './steady.js';
-import { regulate } from './regulate.js';
+import { deadTimeProblem, regulate, type RegulateResult } from './regulate.js';
+import { unreachableResult } from './unreachable.js';
+import { formatSi } from '../units/index.js';
 import { startPoint, type SeedMethod, type StartPoint } from './seed.js';
 import { excerpt } from '../report/excerpt.js';
 import { idealCorner, withIdeal, type IdealOutcome } from '../ideal/index.js';
@@ -47,9 +49,15 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
   let cycles;
   let runs;
   let regulationMet = true;
+  let unreachable: RegulateResult['unreachable'];
   if (regulated) {
+    // The dead-time rule of the fixed-frequency check, at the frequency FHA solved for this corner.
+    const dt = fha.fs !== null ? deadTimeProblem(design.switches.deadTime, fha.fs) : null;
+    if (dt) return { result: withIdeal(failed(corner, fha, { kind: 'dead-time', message: `FHA regulates this corner at ${formatSi(fha.fs!, 'Hz')}: ${dt}` }), ideal) };
     const r = await regulate(engine, design, corner, start.fs, start.seed, start.slope, steadyOpts);
-    ({ steady, simulations, cycles, runs } = r);
+    if (r.deadTime) return { result: withIdeal(failed(corner, fha, { kind: 'dead-time', message: `the frequency search reached ${formatSi(r.deadTime.fs, 'Hz')}: ${r.deadTime.message}` }), ideal) };
+    steady = r.steady!;
+    ({ simulations, cycles, runs, unreachable } = r);
     regulationMet = r.met;
   } else {
     steady = await simulateSteady(engine, design, corner, start.fs, start.seed, steadyOpts);
@@ -60,6 +68,10 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
   }
   const sim: SimSummary = { ...steady.metrics, cycles, runs, simulations, settled: steady.settled, settleError: steady.settleError,
     chargeBalanceError: steady.chargeBalanceError, periodicityError: steady.periodicityError };
+  if (unreachable) {
+    const result = withIdeal(unreachableResult(design, corner, fha, { ...sim, closest: unreachable.closest }), ideal);
+    return { result, waveform: excerpt(corner.id, steady.waveforms as Waveforms, steady.windowStart, WINDOW_CYCLES) };
+  }
   const cmp = compareCorner(design, fha, steady.metrics, regulated, ideal.ideal);
   const measured = { sim, comparison: cmp.rows, divergences: cmp.divergences, checks: evaluateLimits(design, corner.vin, fha, sim, ideal.ideal) };
   const result: CornerResult = withIdeal(regulationMet ? simulated(corner, fha, measured)
