@@ -9,6 +9,16 @@ export function createProgress(stream: NodeJS.WriteStream, total: number, now: (
   const tty = Boolean(stream.isTTY);
   return {
     update(p: StudyProgress) {
+      // screening is fast and may count thousands of corners: a line per tenth in a log
+      if (p.phase === 'screening' && !tty) {
+        const step = Math.max(1, Math.ceil(p.total / 10));
+        if (p.done % step === 0 || p.done === p.total) stream.write(`screening [${p.done}/${p.total}] FHA and ideal model\n`);
+        return;
+      }
+      if (p.phase === 'confirming' && !tty) {
+        stream.write(`confirming [${p.done}/${p.total}] ${p.id} ${p.status}\n`);
+        return;
+      }
       if (!tty) {
         stream.write(`[${p.done}/${p.total}] ${p.id} ${p.status}\n`);
         return;
@@ -18,7 +28,8 @@ export function createProgress(stream: NodeJS.WriteStream, total: number, now: (
       const elapsed = (now() - t0) / 1000;
       const eta = p.done > 0 ? (elapsed / p.done) * (p.total - p.done) : NaN;
       const bar = `${'#'.repeat(filled)}${'.'.repeat(width - filled)}`;
-      stream.write(`\r[${bar}] ${p.done}/${p.total} corners, ${p.failed} failed, ETA ${Number.isFinite(eta) ? `${Math.ceil(eta)} s` : '?'}   `);
+      const what = p.phase === 'screening' ? 'screened' : p.phase === 'confirming' ? 'confirmed' : 'corners';
+      stream.write(`\r[${bar}] ${p.done}/${p.total} ${what}, ${p.failed} failed, ETA ${Number.isFinite(eta) ? `${Math.ceil(eta)} s` : '?'}   `);
     },
     start() {
       if (!tty) stream.write(`simulating ${total} corners\n`);

@@ -11,6 +11,7 @@ import { renderResultsJson, renderWaveformsJson } from '../report/json.js';
 import { renderResultsCsv } from '../report/csv.js';
 import { renderJunit } from '../report/junit.js';
 import { renderRunTable, renderSummary } from '../report/table.js';
+import { renderStatistics } from '../report/statistics.js';
 import { compareBaseline, renderBaseline } from '../compare/baseline.js';
 import { renderHtmlReport } from '../report/html/index.js';
 import { createProgress } from './progress.js';
@@ -116,9 +117,12 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
     ];
     if (o.html) files.push({ path: o.html, text: renderHtmlReport({ results, waveforms, design }) });
     await writeFilesAtomic(files);
-    process.stdout.write(renderRunTable(results, { color: Boolean(process.stdout.isTTY) && !process.env['NO_COLOR'] }));
+    // a Monte Carlo run lists the simulated corners; the screened ones are in the statistics and the files
+    const shown = results.statistics ? { ...results, corners: results.corners.filter((c) => c.status !== 'screened') } : results;
+    process.stdout.write(renderRunTable(shown, { color: Boolean(process.stdout.isTTY) && !process.env['NO_COLOR'] }));
     process.stdout.write(`\n${renderSummary(results)}`);
     process.stdout.write(renderMeasuredTable(results));
+    if (results.statistics) process.stdout.write(`\n${renderStatistics(results.statistics)}`);
     if (results.baseline) process.stdout.write(renderBaseline(results.baseline));
     process.stdout.write(`wrote ${files.map((f) => f.path).join(', ')}\n`);
     if (o.cache) process.stderr.write(`cache: ${run.fromCache.length} of ${results.corners.length} corners from ${o.cacheDir}; ${run.simulated} operating points simulated now\n`);

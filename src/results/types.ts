@@ -2,6 +2,7 @@ import type { FhaResult } from '../fha/types.js';
 import type { SimMetrics } from '../measure/types.js';
 import type { Corner } from '../corners/types.js';
 import type { ComparisonRow, Divergence } from '../compare/types.js';
+import type { MonteCarloStatistics } from '../statistics/summary.js';
 import type { IdealMetrics } from '../ideal/metrics.js';
 import type { LimitCheck } from '../limits/types.js';
 import type { MeasuredReport, MeasuredSummary } from '../measured/types.js';
@@ -9,7 +10,9 @@ import type { MeasuredReport, MeasuredSummary } from '../measured/types.js';
 export type { ComparisonRow, Divergence } from '../compare/types.js';
 export type { LimitCheck, CheckSide, LimitName } from '../limits/types.js';
 
-export type CornerStatus = 'predicted' | 'unreachable' | 'ok' | 'diverged' | 'failed' | 'not-settled' | 'outside-limits';
+export type CornerStatus = 'predicted' | 'unreachable' | 'ok' | 'diverged' | 'failed' | 'not-settled' | 'outside-limits'
+  /** Monte Carlo: screened by FHA and the ideal model only; the simulation did not confirm this corner. */
+  | 'screened';
 
 /** Why a corner failed: the step that failed (`kind`), a one-line reason and optional detail. */
 export interface CornerFailure {
@@ -115,6 +118,8 @@ export interface Results {
   baseline?: BaselineReport;
   /** Measured prototype points compared (`run --measured`). */
   measured?: MeasuredReport;
+  /** Monte Carlo runs (tolerances.corners: random): yield, confirmation, sensitivity; computed from `corners` alone. */
+  statistics?: MonteCarloStatistics;
 }
 
 export interface BaselineReport {

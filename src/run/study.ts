@@ -12,8 +12,12 @@ import { startPoint, type StartPoint } from './seed.js';
 import { mapPool } from '../engine/pool.js';
 import { idealCorner, withIdeal, type IdealOutcome } from '../ideal/index.js';
 import { attachMeasured, measuredCorners, measuredReport, type MeasuredPoint } from '../measured/index.js';
+import { runMonteCarlo, monteCarloFacts } from './montecarlo.js';
+import { monteCarloStatistics } from '../statistics/index.js';
 
 export interface StudyProgress {
+  /** Monte Carlo runs: screening every corner, then confirming the picked ones by simulation. */
+  phase?: 'screening' | 'confirming';
   done: number;
   failed: number;
   total: number;
@@ -34,6 +38,8 @@ export interface StudyOptions {
   jobs?: number;
   /** Glob on corner ids. */
   only?: string;
+  /** Simulate exactly these corners instead of the design's (a Monte Carlo run's confirm set). */
+  corners?: Corner[];
   signal?: AbortSignal;
   cache?: CornerCache;
   onProgress?: (p: StudyProgress) => void;
@@ -59,7 +65,8 @@ export interface StudyOutput {
 /** FHA-only results (no engine): every corner predicted. */
 export function predictStudy(design: Design, only?: string): Results {
   const corners = filterCorners(expandCorners(design), only).map((c) => predictedWithChecks(design, c));
-  return envelope(design, corners, { engine: null });
+  const results = envelope(design, corners, { engine: null });
+  return design.tolerances.corners === 'random' ? { ...results, statistics: monteCarloStatistics(corners, monteCarloFacts(design)) } : results;
 }
 
 /**
@@ -68,9 +75,11 @@ export function predictStudy(design: Design, only?: string): Results {
  * are kept, the rest stay FHA-only and the results are marked incomplete.
  */
 export async function runStudy(design: Design, opts: StudyOptions): Promise<StudyOutput> {
-  const bench = measuredCorners(design, opts.measured?.points ?? []);
+  if (design.tolerances.corners === 'random' && !opts.corners) return runMonteCarlo(design, opts);
+  // a given corner list (a Monte Carlo confirm set) is run as it is, without measured points
+  const bench = opts.corners ? [] : measuredCorners(design, opts.measured?.points ?? []);
   const points = new Map(bench.map((c, i) => [c.id, opts.measured!.points[i]]));
-  const corners = filterCorners([...expandCorners(design), ...bench], opts.only);
+  const corners = opts.corners ?? filterCorners([...expandCorners(design), ...bench], opts.only);
   const engineVersion = await opts.engine.version();
   const outcomes: (CornerOutcome | undefined)[] = new Array(corners.length);
   let done = 0;

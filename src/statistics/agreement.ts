@@ -27,14 +27,14 @@ function median(xs: number[]): number {
  * both (a failed or unsettled simulation, or a corner where the model does not apply, is left out).
  * A metric whose simulated value is 0 is skipped at that corner (no relative error exists).
  */
-export function agreement(corners: readonly { id: string; status: string; ideal?: Readonly<Record<string, unknown>> | null; sim: Readonly<Record<string, unknown>> | null }[]): MetricAgreement[] {
+export function agreement(corners: readonly { id: string; status: string; ideal?: object | null; sim: object | null }[]): MetricAgreement[] {
   const usable = corners.filter((c) => c.sim && c.ideal && c.status !== 'failed' && c.status !== 'not-settled');
   const out: MetricAgreement[] = [];
   for (const metric of AGREEMENT_METRICS) {
     const errors: { id: string; e: number }[] = [];
     for (const c of usable) {
-      const i = c.ideal![metric];
-      const s = c.sim![metric];
+      const i = (c.ideal as Record<string, unknown>)[metric];
+      const s = (c.sim as Record<string, unknown>)[metric];
       if (typeof i === 'number' && typeof s === 'number' && Number.isFinite(i) && Number.isFinite(s) && s !== 0) {
         errors.push({ id: c.id, e: Math.abs(i - s) / Math.abs(s) });
       }

@@ -27,8 +27,9 @@ export interface SampleCornerLike {
   inputs: { vin: number; load: number; fs: number | null; sample?: number; deviation?: Record<string, number> };
   status: string;
   checks?: readonly CheckLike[];
-  ideal?: Readonly<Record<string, unknown>> | null;
-  sim: Readonly<Record<string, unknown>> | null;
+  /** Ideal-model and simulated metrics (read by name). */
+  ideal?: object | null;
+  sim: object | null;
 }
 
 /** Which model's side of a check to read. */

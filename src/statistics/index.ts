@@ -12,3 +12,7 @@ export { clopperPearson, wilsonInterval, binomialCdf, Z95, type Proportion } fro
 export { ksStatistic, ksCritical05 } from './ks.js';
 export { ranks, pearson, spearman } from './rank.js';
 export { rankSensitivity, type SensitivityEntry } from './sensitivity.js';
+export { monteCarloStatistics, type MonteCarloStatistics, type YieldEstimate, type WorstSample, type RunFacts } from './summary.js';
+export { selectConfirm, VALIDATION_SHARE, type ConfirmPick } from './confirm.js';
+export { agreement, AGREEMENT_METRICS, type MetricAgreement } from './agreement.js';
+export { usageOf, operatingPoint, bySample, sampleMeets, type CheckLike, type CheckSideLike, type SampleCornerLike } from './corners.js';

@@ -11,6 +11,7 @@ import { renderMethod } from './method.js';
 import { SCRIPT } from './script.js';
 import { CSS } from './style.js';
 import { renderSummary } from './summary.js';
+import { renderStatisticsSection } from './statistics.js';
 import { renderTable } from './table.js';
 import { renderWaveforms, waveformCorners } from './waveforms.js';
 
@@ -25,6 +26,7 @@ export interface HtmlReportInput {
 /** Section ids and titles, in page order. */
 export const SECTIONS = [
   ['summary', 'Summary'],
+  ['statistics', 'Monte Carlo: yield and sensitivity'],
   ['gain', 'Gain against switching frequency'],
   ['map', 'Corner map'],
   ['table', 'FHA and simulation side by side'],
@@ -43,14 +45,17 @@ export function renderHtmlReport(input: HtmlReportInput): string {
   const waveIds = new Set(waveformCorners(results).filter((c) => waveforms.some((w) => w.id === c.id)).map((c) => c.id));
   const bodies: Record<(typeof SECTIONS)[number][0], string> = {
     summary: renderSummary(results),
+    statistics: renderStatisticsSection(results),
     gain: renderGainSection(results, design),
     map: renderCornerMap(results, design),
     table: renderTable(results, waveIds),
     waves: renderWaveforms(results, waveforms),
     method: renderMethod(),
   };
-  const nav = SECTIONS.map(([id, title]) => `<a href="#${id}">${title}</a>`).join('');
-  const sections = SECTIONS.map(([id, title]) => `<section id="${id}"><h2>${title}</h2>\n${bodies[id]}\n</section>`).join('\n');
+  // the Monte Carlo section only for Monte Carlo runs
+  const shown = SECTIONS.filter(([id]) => id !== 'statistics' || results.statistics);
+  const nav = shown.map(([id, title]) => `<a href="#${id}">${title}</a>`).join('');
+  const sections = shown.map(([id, title]) => `<section id="${id}"><h2>${title}</h2>\n${bodies[id]}\n</section>`).join('\n');
   const name = esc(results.design?.name ?? '');
   return `<!doctype html>
 <html lang="en">

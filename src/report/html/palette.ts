@@ -32,6 +32,7 @@ export const STATUS_STYLE: Record<CornerStatus, StatusStyle> = {
   predicted: { symbol: '○', label: 'FHA only' },
   unreachable: { symbol: '∅', label: 'no FHA solution' },
   'outside-limits': { symbol: '!', label: 'outside limits' },
+  screened: { symbol: '·', label: 'screened only' },
 };
 
 /** Statuses in the order the report lists them. */
