@@ -12,6 +12,7 @@ import { renderResultsCsv } from '../report/csv.js';
 import { renderJunit } from '../report/junit.js';
 import { renderRunTable, renderSummary } from '../report/table.js';
 import { renderStatistics } from '../report/statistics.js';
+import { renderSamplesCsv } from '../report/samplesCsv.js';
 import { compareBaseline, renderBaseline } from '../compare/baseline.js';
 import { renderHtmlReport } from '../report/html/index.js';
 import { createProgress } from './progress.js';
@@ -115,6 +116,8 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
       // what this run took from the cache: kept out of results.json, which stays byte-identical
       { path: join(o.out, 'run-log.json'), text: `${JSON.stringify({ schema: 'tankcheck/run-log@1', cacheDir: o.cache ? o.cacheDir : null, ...run }, null, 2)}\n` },
     ];
+    // Monte Carlo: one row per sample and operating point
+    if (results.statistics) files.push({ path: join(o.out, 'samples.csv'), text: renderSamplesCsv(results) });
     if (o.html) files.push({ path: o.html, text: renderHtmlReport({ results, waveforms, design }) });
     await writeFilesAtomic(files);
     // a Monte Carlo run lists the simulated corners; the screened ones are in the statistics and the files

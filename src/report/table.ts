@@ -139,6 +139,7 @@ export function renderSummary(results: Results): string {
   if (s.flips) parts.push(`${s.flips} limit check(s) where FHA and simulation disagree`);
   if (s.unreachable) parts.push(`${s.unreachable} unreachable`);
   if (s.predicted) parts.push(`${s.predicted} not simulated`);
+  if (s.screened) parts.push(`${s.screened} screened only (FHA and ideal model)`);
   const head = `${parts.join(', ')}. Engine ${results.engine?.name ?? 'none'} ${results.engine?.version ?? ''}; ${s.simulations} operating points simulated.`;
   const worst = s.worst.slice(0, 5).map((w) => `  ${w.id} ${w.metric}${w.error !== null ? ` ${(w.error * 100).toFixed(1)} % (tolerance ${((w.tolerance ?? 0) * 100).toFixed(0)} %)` : ' status differs'}`);
   const inc = results.incomplete ? '\nINCOMPLETE: the run was interrupted; unfinished corners carry FHA values only.' : '';

@@ -16,6 +16,8 @@ export function summarize(corners: CornerResult[], worstCount = 10): ResultsSumm
     predicted: count('predicted'),
     unreachable: count('unreachable'),
     outsideLimits: count('outside-limits'),
+    // only in Monte Carlo runs, so other results files keep their bytes
+    ...(count('screened') ? { screened: count('screened') } : {}),
     flips: corners.reduce((s, c) => s + (c.checks ?? []).filter((x) => x.flip).length, 0),
     simulations: corners.reduce((s, c) => s + (c.sim ? c.sim.simulations : 0), 0),
     worst,

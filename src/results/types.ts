@@ -93,6 +93,8 @@ export interface ResultsSummary {
   notSettled: number;
   predicted: number;
   unreachable: number;
+  /** Monte Carlo corners screened by FHA and the ideal model only (status screened); absent when none. */
+  screened?: number;
   /** Corners whose simulation is outside at least one limit (status outside-limits). */
   outsideLimits: number;
   /** Checks where FHA and simulation disagree on within/outside, over all corners. */

@@ -26,8 +26,9 @@ function screened(c: SampleCornerLike, limit: string): number | null {
 
 /**
  * Which screened corners the simulation confirms, within `budget` corners (pure, deterministic):
- * 1. the worst margins, spread over the limits: round-robin over the limits (in the order they first
- *    appear), each turn taking that limit's next corner by highest usage (ties by id) not taken yet;
+ * 1. the worst margins, spread over the limits: round-robin over the limits (the one whose worst
+ *    corner uses most of its bound first), each turn taking that limit's next corner by highest
+ *    usage (ties by id) not taken yet;
  * 2. a validation set drawn at random (seeded; a partial Fisher-Yates shuffle of the remaining
  *    corners in id order), so the screening's accuracy is also measured away from the extremes.
  * When the limits offer fewer candidates than their share, the validation set takes the rest.
@@ -47,7 +48,9 @@ export function selectConfirm(corners: readonly SampleCornerLike[], budget: numb
       .filter((x): x is { id: string; u: number } => x.u !== null)
       .sort((a, b) => b.u - a.u || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0)),
     next: 0,
-  }));
+  }))
+    // the limit closest to (or furthest beyond) its bound takes the first turn
+    .sort((a, b) => (b.list[0]?.u ?? -Infinity) - (a.list[0]?.u ?? -Infinity));
   const worstBudget = n - validation;
   for (let progress = true; picks.length < worstBudget && progress;) {
     progress = false;

@@ -42,7 +42,7 @@ export interface MonteCarloStatistics {
   };
   /** Per limit: Spearman rank correlation of each tolerance with the sample's worst usage, strongest first. */
   sensitivity: { limit: string; source: 'ideal' | 'fha'; ranking: SensitivityEntry[] }[];
-  /** Per limit: the sample closest to (or furthest beyond) its bound. */
+  /** Per limit: the sample closest to (or furthest beyond) its bound; a state limit (ZVS, region) only where it is not met. */
   worst: WorstSample[];
   /** Operating points (corner ids without the sample part), in corner order. */
   operatingPoints: string[];
@@ -111,7 +111,8 @@ export function monteCarloStatistics(corners: readonly SampleCornerLike[], facts
       const u = ch && c.inputs.sample !== undefined ? screenedUsage(ch) : null;
       if (u && (!best || u.usage > best.usage)) best = { limit, sample: c.inputs.sample!, id: c.id, ...u };
     }
-    if (!best) return [];
+    // a state met everywhere (usage 0) has no worst sample
+    if (!best || best.usage === 0) return [];
     return [{ ...best, usage: Number.isFinite(best.usage) ? best.usage : null }];
   });
 

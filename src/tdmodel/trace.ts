@@ -52,6 +52,10 @@ export function tracePeriod(p: TdParams, state: HeldOutputResult, pointsPerHalf 
   const half: Sample[] = [];
   const x = new Float64Array(4);
   const push = (t: number, rect: RectMode, bridge: Bridge) => {
+    // a step's start is computed apart from the previous step's end and may fall one rounding
+    // error before it: time must never run backwards for the measurement
+    const last = half[half.length - 1];
+    if (last && t < last.t) t = last.t;
     half.push({ t, x: [x[0], x[1], x[2], x[3]], vm: lmVoltage(c, x, rect, bridge), on: bridge === 'on', path: PATH[bridge] });
   };
   hp.onStep = (poly, t, tau, rect, bridge) => {

@@ -19,7 +19,7 @@ interface Point { value: number; confirmed: boolean }
 
 /** Screened value of a check: the ideal model's, or FHA's where the ideal model has none; relative: divided by the bound. */
 function checkValue(c: CornerResult, limit: string, relative = false): number | null {
-  const ch = (c as { checks?: { limit: string; bound: unknown; fha: { value: unknown }; ideal: { value: unknown } | null }[] }).checks?.find((x) => x.limit === limit);
+  const ch = c.checks?.find((x) => x.limit === limit);
   const v = ch ? (typeof ch.ideal?.value === 'number' ? ch.ideal.value : ch.fha.value) : null;
   if (typeof v !== 'number' || !Number.isFinite(v)) return null;
   if (!relative) return v;
@@ -28,7 +28,7 @@ function checkValue(c: CornerResult, limit: string, relative = false): number | 
 
 function boundOf(results: Results, limit: string): number | null {
   for (const c of results.corners) {
-    const b = (c as { checks?: { limit: string; bound: unknown }[] }).checks?.find((x) => x.limit === limit)?.bound;
+    const b = c.checks?.find((x) => x.limit === limit)?.bound;
     if (typeof b === 'number') return b;
   }
   return null;
@@ -61,7 +61,7 @@ function frequencyFigures(results: Results): string {
   const groups = new Map<string, Point[]>();
   for (const c of results.corners) {
     if (c.inputs.sample === undefined || c.inputs.fs !== null) continue;
-    const ideal = (c as { ideal?: { fs?: number } | null }).ideal?.fs;
+    const ideal = c.ideal?.fs;
     const v = typeof ideal === 'number' ? ideal : c.fha.fs;
     if (v === null || v === undefined) continue;
     const k = operatingPoint(c);
@@ -103,7 +103,7 @@ function sensitivityBars(s: MonteCarloStatistics): string {
 
 /** The section body; empty when the results have no Monte Carlo statistics. */
 export function renderStatisticsSection(results: Results): string {
-  const s = (results as { statistics?: MonteCarloStatistics }).statistics;
+  const s = results.statistics;
   if (!s) return '<p>Not a Monte Carlo run (tolerances.corners: random).</p>';
   const y = (name: string, e: MonteCarloStatistics['yield']['fha']) =>
     `<tr><th scope="row">${name}</th><td class="num">${pct(e.value)}</td><td class="num">${pct(e.low)} .. ${pct(e.high)}</td><td class="num">${e.meets} of ${s.samples}${e.unknown ? ` (${e.unknown} without a value)` : ''}</td></tr>`;
