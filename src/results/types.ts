@@ -54,7 +54,8 @@ export interface CornerResult {
   fha: FhaResult;
   /**
    * The ideal time-domain model's metrics (same names and definitions as `sim`); null where the
-   * model does not apply, with the reason in `idealReason`. Absent in results written before it existed.
+   * model does not apply, with the reason in `idealReason`. Absent in results written before it
+   * existed and on corners an interrupted run never started.
    */
   ideal?: IdealMetrics | null;
   /** Why `ideal` is null. */

@@ -30,6 +30,10 @@ describe('gain curves', () => {
     const p = d.panels[1]!.points.find((q) => q.id === 'v390_100pct_reg_nom')!;
     const c = demo.results.corners.find((x) => x.id === p.id)!;
     expect(p.sim).toEqual({ fs: c.sim!.fs, gain: c.sim!.gain });
+    // The ideal model's point: its solved frequency and the gain that meets the set point.
+    const fresh = gainFigureData(predictStudy(demo.design), demo.design).panels[1]!.points.find((q) => q.id === p.id)!;
+    expect(fresh.ideal!.gain).toBeCloseTo(c.fha.gainTarget, 6);
+    expect(fresh.ideal!.fs).toBeGreaterThan(0.9 * c.fha.fs!);
   });
 
   it('spread into a band over the tank tolerance sets that brackets every tolerance corner', () => {

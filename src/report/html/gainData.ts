@@ -16,6 +16,8 @@ export interface GainPoint {
   load: number;
   fha: OpPoint | null;
   sim: OpPoint | null;
+  /** The ideal time-domain model's operating point (absent or null without an ideal column). */
+  ideal?: OpPoint | null;
 }
 
 export interface GainCurve {
@@ -116,10 +118,11 @@ export function gainFigureData(results: Results, design?: Design): GainFigureDat
   const points = (vin: number): GainPoint[] => corners.filter((c) => c.inputs.vin === vin).map((c) => ({
     id: c.id, status: c.status, load: loads.findIndex((l) => l.label === String(c.inputs.loadLabel)),
     fha: opPoint(c.fha.fs, c.fha.gain), sim: c.sim ? opPoint(c.sim.fs, c.sim.gain) : null,
+    ideal: c.ideal ? opPoint(c.ideal.fs, c.ideal.gain) : null,
   }));
   const all = vins.flatMap(points);
-  const pfs = all.flatMap((p) => [p.fha?.fs, p.sim?.fs]).filter((v): v is number => v !== undefined);
-  const pg = all.flatMap((p) => [p.fha?.gain, p.sim?.gain]).filter((v): v is number => v !== undefined);
+  const pfs = all.flatMap((p) => [p.fha?.fs, p.sim?.fs, p.ideal?.fs]).filter((v): v is number => v !== undefined);
+  const pg = all.flatMap((p) => [p.fha?.gain, p.sim?.gain, p.ideal?.gain]).filter((v): v is number => v !== undefined);
   // From 0.6 fr (or just below fp) to 1.4 fr, widened to every operating point.
   const lo = Math.min(fr ? Math.max(0.6 * fr, 0.95 * (fp ?? 0)) : Infinity, 0.92 * Math.min(...pfs));
   const hi = Math.max(fr ? 1.4 * fr : -Infinity, 1.08 * Math.max(...pfs));

@@ -14,23 +14,25 @@ const M = { l: 48, r: 50, t: 26, b: 40 };
 const kHz = (v: number) => num(v, 4, 1e3);
 
 /**
- * Operating points in three layers (gap lines, simulated, FHA on top: hollow, so nothing hides), each
- * marker a link to its table row with the values as a tooltip.
+ * Operating points in four layers (gap lines, simulated, ideal model as a cross, FHA on top: hollow,
+ * so nothing hides), each marker a link to its table row with the values as a tooltip.
  */
 function pointLayers(points: GainPoint[], sx: Scale, sy: Scale): string {
   const link = (p: GainPoint, body: string) => `<a href="#${rowAnchor(p.id)}" class="op"><title>${esc(tooltip(p))}</title>${body}</a>`;
   const gaps = points.filter((p) => p.fha && p.sim)
     .map((p) => `M${px(sx(p.fha!.fs))} ${px(sy(p.fha!.gain))}L${px(sx(p.sim!.fs))} ${px(sy(p.sim!.gain))}`).join('');
   const sims = points.filter((p) => p.sim).map((p) => link(p, `<path class="pt-sim" d="M${px(sx(p.sim!.fs))} ${px(sy(p.sim!.gain) - 4.5)}l4.5 4.5-4.5 4.5-4.5-4.5z" fill="${seriesColour(Math.max(p.load, 0))}"/>`));
+  const ideals = points.filter((p) => p.ideal).map((p) => link(p, `<path class="pt-ideal" d="M${px(sx(p.ideal!.fs) - 4)} ${px(sy(p.ideal!.gain) - 4)}l8 8m0-8l-8 8" stroke="${seriesColour(Math.max(p.load, 0))}" stroke-width="1.5"/>`));
   const fhas = points.filter((p) => p.fha).map((p) => link(p, `<circle class="pt-fha" cx="${px(sx(p.fha!.fs))}" cy="${px(sy(p.fha!.gain))}" r="4" stroke="${seriesColour(Math.max(p.load, 0))}"/>`));
-  return `${gaps ? `<path class="gap" d="${gaps}"/>` : ''}${sims.join('')}${fhas.join('')}`;
+  return `${gaps ? `<path class="gap" d="${gaps}"/>` : ''}${sims.join('')}${ideals.join('')}${fhas.join('')}`;
 }
 
 function tooltip(p: GainPoint): string {
   const fha = p.fha ? `FHA ${kHz(p.fha.fs)} kHz, M ${num(p.fha.gain)}` : 'FHA: no operating point';
   const sim = p.sim ? `sim ${kHz(p.sim.fs)} kHz, M ${num(p.sim.gain)}` : 'sim: none';
   const gap = p.fha && p.sim ? ` (fs ${pct((p.sim.fs - p.fha.fs) / p.fha.fs)}, M ${pct((p.sim.gain - p.fha.gain) / p.fha.gain)})` : '';
-  return `${p.id}: ${fha}; ${sim}${gap}`;
+  const ideal = p.ideal ? `; ideal model ${kHz(p.ideal.fs)} kHz, M ${num(p.ideal.gain)}` : '';
+  return `${p.id}: ${fha}; ${sim}${gap}${ideal}`;
 }
 
 /** Capacitive region: left of fp, and below the zero-phase locus down to fr (docs/method.md#zero-phase). */
@@ -109,6 +111,7 @@ function legend(d: GainFigureData): string {
       : `<svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><rect x="2" y="2" width="8" height="8" fill="${seriesColour(i)}"/></svg>`}load ${esc(l.label)}`),
     pts.some((p) => p.fha) ? '<svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><circle cx="6" cy="6" r="4" class="pt-fha" stroke="#333"/></svg>FHA operating point' : '',
     pts.some((p) => p.sim) ? '<svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><path d="M6 1.5l4.5 4.5-4.5 4.5-4.5-4.5z" fill="#333"/></svg>simulated operating point (thin line: the gap to FHA)' : '',
+    pts.some((p) => p.ideal) ? '<svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><path d="M2 2l8 8m0-8l-8 8" stroke="#333" stroke-width="1.5"/></svg>ideal time-domain model' : '',
     d.panels.some((p) => p.target !== null) ? `${line('stroke="#777" stroke-dasharray="1 3"')}gain the Vout set point needs` : '',
     d.hasDesign ? `${line('class="boundary"')}zero-phase boundary` : '',
   ];

@@ -54,6 +54,7 @@ svg.plot .curve-label{font-size:10.5px;font-weight:600;paint-order:stroke;stroke
 svg.plot .gap{stroke:#333;stroke-width:1}
 svg.plot .pt-fha,.legend .pt-fha{fill:#fff;stroke-width:1.8}
 svg.plot .pt-sim{stroke:#222;stroke-width:.8}
+svg.plot .pt-ideal{fill:none}
 svg.plot a.op:hover .pt-fha,svg.plot a.op:hover .pt-sim{stroke-width:3}
 svg.plot .edge{stroke:#bbb;stroke-width:1;stroke-dasharray:2 3}
 svg.plot .zero{stroke:#999;stroke-width:.8}
