@@ -4,7 +4,8 @@ import { aboveResonanceSet, resonantSet, sineSet } from './models.test-support.j
 import { synthesize } from './synthetic.test-support.js';
 import type { SimMetrics, Waveforms } from './types.js';
 
-// Tank of shared/checks/worked-example.json (HB, CT, ideal diodes): Vin 400 V, Lr 50 uH, Cr 50 nF, Lm 250 uH, n 4, RL 4 ohm.
+// Measurement arithmetic on synthetic waveform sets (plumbing: the sets build in the physics, see
+// synthetic.test-support.ts). Tank of shared/checks/worked-example.json (HB, CT, ideal diodes): Vin 400 V, Lr 50 uH, Cr 50 nF, Lm 250 uH, n 4, RL 4 ohm.
 const tank = { vin: 400, lr: 50e-6, cr: 50e-9, lm: 250e-6, n: 4, load: 4 };
 const fr = 1 / (2 * Math.PI * Math.sqrt(tank.lr * tank.cr));
 const zr = Math.sqrt(tank.lr / tank.cr);
@@ -29,7 +30,7 @@ describe('ideal converter at fs = fr (docs/method.md#stresses, derived from circ
   });
 
   it('tank current RMS and peak equal the exact fs = fr expressions', () => {
-    expect(rel(m.tankCurrentRms, irRms)).toBeLessThan(1e-5); // brief asks 0.5 %; the PWL data allow far less
+    expect(rel(m.tankCurrentRms, irRms)).toBeLessThan(1e-5); // exact for piecewise-linear data; 1e-5 covers the sampling
     expect(rel(m.tankCurrentPeak, irPk)).toBeLessThan(1e-6);
     expect(rel(m.magnetizingCurrentPeak, im)).toBeLessThan(1e-9);
   });

@@ -4,6 +4,11 @@
  * Gates: high side (HB high, FB S1/S4) crosses 0.5 upward at k Ts + td/2 and downward at
  * k Ts + Ts/2 - td/2; the other group half a period later. Every quantity has half-wave symmetry,
  * f(t + Ts/2) = -f(t), built from a model of the first half period.
+ *
+ * Plumbing only, not a check of the physics: the generator builds in Vo = Vin_eff / n, a diode
+ * blocking voltage of 2 Vo and the half-sine shapes, so measurements of these sets can only show
+ * that measure() computes what it says from the waveforms it is given. The physics of simulated
+ * numbers is checked against independent decks in tests/sim/reference.engine.test.ts.
  */
 import type { Inverter, Rectifier } from '../design/types.js';
 import type { SwitchTrace, Waveforms } from './types.js';

@@ -1,4 +1,5 @@
-// Steady-state verification against real ngspice (issue: netlists and engines). Slow-tagged (*.engine.test.ts).
+// Steady-state verification against real ngspice: a seeded, verified steady state against a long
+// run from rest (common practice: a periodic steady state does not depend on the start). Slow-tagged (*.engine.test.ts).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createNgspiceEngine, createWasmEngine } from '../../src/engine/index.js';
 import { expandCorners } from '../../src/corners/expand.js';
