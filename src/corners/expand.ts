@@ -1,3 +1,4 @@
+import { effectiveTurnsRatio } from '../design/transformer.js';
 import type { Design, ExplicitCorner, LoadSpec } from '../design/types.js';
 import type { Corner, TolSide } from './types.js';
 import { sampleCorners } from './random.js';
@@ -59,6 +60,15 @@ export function toleranceSets(design: Design): Corner['tolerance'][] {
 
 const NOMINAL: Corner['tolerance'] = { lr: 0, cr: 0, lm: 0 };
 
+/**
+ * A corner's turnsRatio is the equivalent ideal transformer's, which every model uses; an
+ * integrated tank's entered winding ratio Np/Ns is kept beside it (see design/transformer.ts).
+ */
+function turns(design: Design, v: { lr: number; lm: number }, winding: number): Pick<Corner, 'turnsRatio' | 'windingRatio'> {
+  if (!design.tank.integrated) return { turnsRatio: winding };
+  return { turnsRatio: effectiveTurnsRatio(true, v.lr, v.lm, winding), windingRatio: winding };
+}
+
 /** tolId replaces the tolerance-set part of the id (a Monte Carlo sample's "s0017"). */
 function makeCorner(design: Design, vin: number, load: LoadSpec, fs: number | null,
   tol: Corner['tolerance'], values: { lr: number; cr: number; lm: number }, prefix: string, tolId = tolIdPart(tol)): Corner {
@@ -67,7 +77,7 @@ function makeCorner(design: Design, vin: number, load: LoadSpec, fs: number | nu
   return {
     id: `${prefix}v${idNumber(vin)}_${loadIdPart(load)}_${freqIdPart(fs)}_${tolId}`,
     vin, load: r, loadLabel: loadLabel(load), iout: v / r, pout: (v * v) / r, fs,
-    ...values, turnsRatio: design.tank.turnsRatio, tolerance: tol,
+    ...values, ...turns(design, values, design.tank.turnsRatio), tolerance: tol,
   };
 }
 
@@ -89,7 +99,7 @@ export function expandCorners(design: Design): Corner[] {
         if (tl.corners === 'random') {
           for (const s of samples) {
             const c = makeCorner(design, vin, load, fs, NOMINAL, s.values, '', s.suffix);
-            out.push({ ...c, turnsRatio: s.turnsRatio, sample: s.index, deviation: s.deviation });
+            out.push({ ...c, ...turns(design, s.values, s.turnsRatio), sample: s.index, deviation: s.deviation });
           }
           continue;
         }

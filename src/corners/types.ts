@@ -18,7 +18,13 @@ export interface Corner {
   lr: number;
   cr: number;
   lm: number;
+  /**
+   * Ratio of the equivalent ideal transformer (all leakage on the primary), the one every model
+   * uses: tank.turnsRatio for a discrete tank, k Np/Ns for an integrated one.
+   */
   turnsRatio: number;
+  /** Integrated tank only: the winding ratio Np/Ns as entered (turnsRatio / k). */
+  windingRatio?: number;
   tolerance: { lr: TolSide; cr: TolSide; lm: TolSide };
   /** Monte Carlo sample number (tolerances.corners: random), 0-based; absent otherwise. */
   sample?: number;

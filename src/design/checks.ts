@@ -1,4 +1,5 @@
 import type { Design } from './types.js';
+import { effectiveTurnsRatio } from './transformer.js';
 import { formatSi } from '../units/index.js';
 import type { Loc, Reader } from './reader.js';
 
@@ -28,7 +29,9 @@ function fixedFrequencies(d: Core, r: Reader): { fs: number; path: string }[] {
  */
 export function checkPhysics(d: Core, r: Reader): void {
   const at = (path: string): Loc => r.seen.get(path) ?? { line: 0, column: 0 };
-  const { lr, cr, lm, turnsRatio: n } = d.tank;
+  const { lr, cr, lm } = d.tank;
+  // the equivalent ideal transformer's ratio (k Np/Ns for an integrated tank)
+  const n = effectiveTurnsRatio(d.tank.integrated, lr, lm, d.tank.turnsRatio);
 
   // An LLC tank needs Lm > Lr (Ln = Lm/Lr > 1); below that the design is almost surely swapped values.
   const tankPair = (lrV: number, lmV: number, path: string, what: string): void => {

@@ -1,3 +1,4 @@
+import { effectiveTurnsRatio } from '../design/transformer.js';
 import type { Design } from '../design/types.js';
 import type { Corner } from '../corners/types.js';
 import { idNumber, loadLabel } from '../corners/expand.js';
@@ -32,7 +33,8 @@ export function measuredCorners(design: Design, points: readonly MeasuredPoint[]
     return {
       id: `m${p.line}_v${idNumber(p.vin)}_${idNumber(r)}ohm_f${idNumber(p.fs / 1e3)}k`,
       vin: p.vin, load: r, loadLabel: loadLabel(p.load), iout: p.vout / r, pout: (p.vout * p.vout) / r, fs: p.fs,
-      lr: tank.lr, cr: tank.cr, lm: tank.lm, turnsRatio: tank.turnsRatio, tolerance: { lr: 0, cr: 0, lm: 0 },
+      lr: tank.lr, cr: tank.cr, lm: tank.lm, turnsRatio: effectiveTurnsRatio(tank.integrated, tank.lr, tank.lm, tank.turnsRatio),
+      ...(tank.integrated ? { windingRatio: tank.turnsRatio } : {}), tolerance: { lr: 0, cr: 0, lm: 0 },
     };
   });
 }

@@ -54,7 +54,8 @@ export function referenceDesign(c: ReferenceCase, over: { integrated?: boolean }
   return makeDesign({
     name: `ref_${c.deck.replace(/-/g, '_')}`,
     topology: { inverter: c.inverter, rectifier: c.rectifier },
-    tank: { lr: 47e-6, cr: 39e-9, lm: 235e-6, turnsRatio: 8, integrated: over.integrated ?? false },
+    // integrated: the winding ratio whose equivalent ideal transformer is the reference's 8:1 (8 / k, k = sqrt(Lm / (Lr + Lm)))
+    tank: { lr: 47e-6, cr: 39e-9, lm: 235e-6, turnsRatio: over.integrated ? 8 / Math.sqrt(235 / (47 + 235)) : 8, integrated: over.integrated ?? false },
     switches: { deadTime: 200e-9, coss: 300e-12, rdsOn: 0.05 },
     rectifier: { forwardVoltage: 0.8, resistance: 0.005 },
     output: { voltage: c.voltage, capacitance: c.co, esr: 0.01 },

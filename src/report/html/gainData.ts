@@ -1,4 +1,5 @@
 /** Numbers behind the gain-against-frequency figure: FHA curves, zero-phase boundary, operating points. Pure. */
+import { effectiveTurnsRatio } from '../../design/transformer.js';
 import type { Design } from '../../design/types.js';
 import { fhaGain, zeroPhaseFn } from '../../fha/gain.js';
 import { acResistance, bridgeFactor, rectifierDrop, tankConstants } from '../../fha/predict.js';
@@ -80,7 +81,7 @@ function loadKeys(corners: CornerResult[]): LoadKey[] {
  */
 export function gainCurve(design: Design, load: number, tank: { lr: number; cr: number; lm: number }, grid: number[]): (number | null)[] {
   const { fr, zr, ln } = tankConstants(tank);
-  const q = zr / acResistance(design.tank.turnsRatio, design.output.voltage, rectifierDrop(design), load);
+  const q = zr / acResistance(effectiveTurnsRatio(design.tank.integrated, design.tank.lr, design.tank.lm, design.tank.turnsRatio), design.output.voltage, rectifierDrop(design), load);
   return grid.map((fs) => finite(fhaGain(fs / fr, q, ln)));
 }
 
@@ -142,7 +143,7 @@ export function gainFigureData(results: Results, design?: Design): GainFigureDat
         if (tanks.size === 0) return { load: li, gain };
         return { load: li, gain, band: band([gain, ...[...tanks.values()].map((t) => gainCurve(design, l.load, t, grid))]) };
       });
-    return { vin, curves, points: points(vin), target, vout: { perGain: (bridgeFactor(design) * vin) / design.tank.turnsRatio, drop: rectifierDrop(design) } };
+    return { vin, curves, points: points(vin), target, vout: { perGain: (bridgeFactor(design) * vin) / effectiveTurnsRatio(design.tank.integrated, design.tank.lr, design.tank.lm, design.tank.turnsRatio), drop: rectifierDrop(design) } };
   });
 
   const curveMin = Math.min(...panels.flatMap((p) => p.curves.flatMap((c) => c.gain.filter((g): g is number => g !== null))));
