@@ -4,9 +4,10 @@ import type { CornerResult, CornerStatus, Results } from '../../results/types.js
 import { esc, rowAnchor } from './escape.js';
 import { eng, num } from './format.js';
 import { knownStatus, STATUS_STYLE, statusText } from './palette.js';
+import { limitText } from './limits.js';
 
 /** Worst first: the cell colour follows the worst corner in it. */
-const SEVERITY: CornerStatus[] = ['failed', 'diverged', 'not-settled', 'unreachable', 'ok', 'predicted'];
+const SEVERITY: CornerStatus[] = ['failed', 'outside-limits', 'diverged', 'not-settled', 'unreachable', 'ok', 'predicted'];
 /** More corners than this in one cell are shown as counts. */
 const CELL_LIST_MAX = 4;
 
@@ -40,7 +41,8 @@ function item(c: CornerResult, withFs: boolean): string {
   const n = c.divergences.length;
   const fs = withFs ? `<b>${c.inputs.fs === null ? 'regulated' : `${num(c.inputs.fs, 4, 1e3)} kHz`}</b> ` : '';
   return `<a href="#${rowAnchor(c.id)}" title="${esc(c.id)}">${fs}<span class="v">${esc(statusText(c.status))}${n ? ` (${n})` : ''}</span>`
-    + `<span class="sw">${c.sim ? '' : 'FHA: '}${esc(zvsText(c))} · ${esc(zcsText(c))}</span></a>`;
+    + `<span class="sw">${c.sim ? '' : 'FHA: '}${esc(zvsText(c))} · ${esc(zcsText(c))}</span>`
+    + `${c.checks?.length ? `<span class="lim">${esc(limitText(c))}</span>` : ''}</a>`;
 }
 
 function cell(cs: CornerResult[]): string {
@@ -91,6 +93,6 @@ function grid(cs: CornerResult[], design?: Design): string {
 export function renderCornerMap(results: Results, design?: Design): string {
   if (results.corners.length === 0) return '<p>No corners.</p>';
   const key = Object.entries(STATUS_STYLE).map(([s, v]) => `<span class="st-${s}">${v.symbol} ${v.label}</span>`).join(' ');
-  return `<p class="caption">Each cell: verdict (number of diverged metrics in brackets), then ZVS of the bridge switches and ZCS of the rectifier, simulated where a simulation exists, otherwise FHA's (marked FHA:). Cells link to the table rows.</p>`
+  return `<p class="caption">Each cell: verdict (number of diverged metrics in brackets), then ZVS of the bridge switches and ZCS of the rectifier, simulated where a simulation exists, otherwise FHA's (marked FHA:), then the limits: ✓ within, or ! and the limits outside (FHA missed: FHA said within). Cells link to the table rows.</p>`
     + `<p class="legend key">${key}</p><div class="maps">${tankGroups(results.corners).map((g) => grid(g, design)).join('')}</div>`;
 }

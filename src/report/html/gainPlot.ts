@@ -58,12 +58,23 @@ function curveLabels(d: GainFigureData, p: GainPanel, sy: Scale, w: number): str
   return labels.map(({ c, y }) => `<text class="curve-label" x="${w - 3}" y="${px(y)}" text-anchor="end" style="fill:${seriesColour(c.load)}">${esc(d.loads[c.load]!.label)}</text>`).join('');
 }
 
-function panelSvg(d: GainFigureData, p: GainPanel): string {
+/** The controller's frequency window as a shaded band with dashed edges (open side to the plot edge). */
+function frequencyWindow(win: { min?: number; max?: number } | undefined, sx: Scale, h: number, w: number): string {
+  if (!win) return '';
+  const x0 = win.min !== undefined ? Math.max(0, sx(win.min)) : 0;
+  const x1 = win.max !== undefined ? Math.min(w, sx(win.max)) : w;
+  if (!(x1 > x0)) return '';
+  const edge = (v: number | undefined, label: string) => (v === undefined || sx(v) < 0 || sx(v) > w ? ''
+    : `<path class="fedge" d="M${px(sx(v))} 0v${h}"/><text class="fedge" x="${px(sx(v) + 3)}" y="${h - 16}">${esc(label)}</text>`);
+  return `<rect class="fwindow" x="${px(x0)}" y="0" width="${px(x1 - x0)}" height="${h}"/>${edge(win.min, 'fs min')}${edge(win.max, 'fs max')}`;
+}
+
+function panelSvg(d: GainFigureData, p: GainPanel, win?: { min?: number; max?: number }): string {
   const w = W - M.l - M.r;
   const h = H - M.t - M.b;
   const sx = linearScale(d.fsAxis.d0, d.fsAxis.d1, 0, w);
   const sy = linearScale(d.gainAxis.d0, d.gainAxis.d1, h, 0);
-  const inner: string[] = [capacitiveRegion(d, sx, sy, h)];
+  const inner: string[] = [frequencyWindow(win, sx, h, w), capacitiveRegion(d, sx, sy, h)];
   for (const c of p.curves) {
     if (!c.band) continue;
     const upper = linePath(d.grid, c.band.hi, sx, sy);
@@ -125,5 +136,7 @@ export function renderGainSection(results: Results, design?: Design): string {
   const note = d.hasDesign
     ? '<p class="caption">Tank gain M = n (Vout + V<sub>F</sub>) / V<sub>in,eff</sub> against switching frequency, one panel per input voltage. Curves: FHA gain for each load with the nominal tank, Q from R<sub>ac</sub> at the output set point (rectifier drop included); shaded bands: spread over the tank tolerance sets. Grey area: capacitive tank input (below the zero-phase boundary, or below fp), where ZVS is lost. Each point links to its table row; hover for values.</p>'
     : '<p class="caption notice">The design file was not available, so this figure shows only the FHA and simulated operating points (and fr from the results): the FHA gain curves and the zero-phase boundary need the design. Re-run the report with the design file to draw them.</p>';
-  return `${note}<div class="panels">${d.panels.map((p) => panelSvg(d, p)).join('')}</div>${legend(d)}`;
+  const win = design?.limits?.frequency;
+  const winNote = win ? `<p class="legend"><span><svg class="sw" viewBox="0 0 28 10" aria-hidden="true"><rect x="1" y="1" width="26" height="8" class="fwindow"/></svg>the controller's frequency window (limits.frequency${win.min !== undefined ? `, min ${esc(kHz(win.min))} kHz` : ''}${win.max !== undefined ? `, max ${esc(kHz(win.max))} kHz` : ''})</span></p>` : '';
+  return `${note}<div class="panels">${d.panels.map((p) => panelSvg(d, p, win)).join('')}</div>${legend(d)}${winNote}`;
 }

@@ -5,6 +5,7 @@
 import type { Design } from '../../design/types.js';
 import type { Results, WaveformExcerpt } from '../../results/types.js';
 import { renderCornerMap } from './cornerMap.js';
+import { renderLimits, renderMissed } from './limits.js';
 import { esc } from './escape.js';
 import { renderGainSection } from './gainPlot.js';
 import { renderMethod } from './method.js';
@@ -29,6 +30,7 @@ export const SECTIONS = [
   ['statistics', 'Monte Carlo: yield and sensitivity'],
   ['gain', 'Gain against switching frequency'],
   ['map', 'Corner map'],
+  ['limits', 'Limits and stresses'],
   ['table', 'FHA and simulation side by side'],
   ['waves', 'Waveforms'],
   ['method', 'Method and limits'],
@@ -44,10 +46,11 @@ export function renderHtmlReport(input: HtmlReportInput): string {
   const { results, waveforms, design } = input;
   const waveIds = new Set(waveformCorners(results).filter((c) => waveforms.some((w) => w.id === c.id)).map((c) => c.id));
   const bodies: Record<(typeof SECTIONS)[number][0], string> = {
-    summary: renderSummary(results),
+    summary: `${renderMissed(results)}${renderSummary(results)}`,
     statistics: renderStatisticsSection(results),
     gain: renderGainSection(results, design),
     map: renderCornerMap(results, design),
+    limits: renderLimits(results, design),
     table: renderTable(results, waveIds),
     waves: renderWaveforms(results, waveforms),
     method: renderMethod(),

@@ -36,7 +36,7 @@ export const STATUS_STYLE: Record<CornerStatus, StatusStyle> = {
 };
 
 /** Statuses in the order the report lists them. */
-export const STATUS_ORDER: CornerStatus[] = ['ok', 'diverged', 'failed', 'not-settled', 'predicted', 'unreachable'];
+export const STATUS_ORDER: CornerStatus[] = ['ok', 'diverged', 'outside-limits', 'failed', 'not-settled', 'predicted', 'unreachable'];
 
 /** Known status or null (a results file may carry anything). */
 export function knownStatus(s: unknown): CornerStatus | null {

@@ -4,12 +4,13 @@ const STATUS_CSS = [
   ['diverged', '#fbe4d3', '#9c4300'],
   ['failed', '#f4e0ec', '#7d3560'],
   ['not-settled', '#fcefd2', '#7a5400'],
+  ['outside-limits', '#f9d9d6', '#8f1d12'],
   ['predicted', '#eeeeee', '#444444'],
   ['unreachable', '#dcecf7', '#0b4f7a'],
   ['unknown', '#ffffff', '#000000'],
 ].map(([s, bg, fg]) => `.st-${s}{background:${bg};color:${fg}}`).join('\n');
 
-const HIDE_CSS = ['ok', 'diverged', 'failed', 'not-settled', 'predicted', 'unreachable']
+const HIDE_CSS = ['ok', 'diverged', 'outside-limits', 'failed', 'not-settled', 'predicted', 'unreachable']
   .map((s) => `table.hide-${s} tr[data-status="${s}"]`).join(',') + '{display:none}';
 
 export const CSS = `
@@ -52,6 +53,12 @@ svg.plot text.marker{stroke:none}
 svg.plot .target{stroke:#777;stroke-dasharray:1 3;stroke-width:1.2}
 svg.plot .curve-label{font-size:10.5px;font-weight:600;paint-order:stroke;stroke:#fff;stroke-width:3px}
 svg.plot .gap{stroke:#333;stroke-width:1}
+svg.plot .fwindow{fill:#009E73;opacity:.08;stroke:none}svg.plot .fedge{stroke:#009E73;stroke-width:1.2;stroke-dasharray:5 3}svg.plot text.fedge{fill:#00684b;stroke:none;font-size:10px}
+svg.plot .bound{stroke:#8f1d12;stroke-width:1.5}svg.plot .rating{stroke:#8f1d12;stroke-width:1;stroke-dasharray:5 3}
+svg.plot text.bound,svg.plot text.rating{fill:#8f1d12;stroke:none;font-size:10px}svg.plot text.row{font-size:10px}
+svg.plot .pt-ideal{stroke:#E69F00;stroke-width:2}svg.plot.stress .pt-sim{fill:#0072B2}svg.plot .pt-sim.out{stroke:#D55E00;stroke-width:2}svg.plot.stress .pt-fha{stroke:#333}
+.missed{border:2px solid #8f1d12;background:#fbeceb;padding:6px 12px;margin:10px 0}.missed h3{margin:4px 0}.missed-none{color:#00684b}
+.map .lim{display:block;font-size:12px}.legend .fwindow{fill:#009E73;opacity:.25}
 svg.plot .pt-fha,.legend .pt-fha{fill:#fff;stroke-width:1.8}
 svg.plot .pt-sim{stroke:#222;stroke-width:.8}
 svg.plot .pt-ideal{fill:none}

@@ -27,7 +27,7 @@ function baseline(results: Results): string {
   const b = results.baseline;
   if (!b) return '';
   const verdict = b.regressed ? '<strong>✗ regressed</strong>' : '✓ no regression';
-  return `<p class="baseline">Against baseline <code>${esc(b.file)}</code>: ${verdict}; ${b.statusChanges.length} status change(s), ${b.moved.length} metric(s) moved beyond the baseline tolerance, ${b.added.length} corner(s) added, ${b.removed.length} removed.</p>`;
+  return `<p class="baseline">Against baseline <code>${esc(b.file)}</code>: ${verdict}; ${b.statusChanges.length} status change(s), ${b.moved.length} metric(s) moved beyond the baseline tolerance, ${b.added.length} corner(s) added, ${b.removed.length} removed, ${b.checksOutside?.length ?? 0} limit check(s) went from within to outside.</p>`;
 }
 
 /** Section body. */
