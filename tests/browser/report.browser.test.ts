@@ -71,9 +71,11 @@ describe('HTML report in headless Chromium', () => {
     const vins = new Set(results.corners.map((c) => c.inputs.vin)).size;
     expect(plots.filter((p) => p.kind === 'gain')).toHaveLength(vins);
     expect(plots.filter((p) => p.kind === 'gain').reduce((n, p) => n + p.lengths.length, 0)).toBe(loads * vins);
-    const drawn = waveforms.filter((w) => results.corners.some((c) => c.id === w.id && (c.status === 'diverged' || c.id.endsWith('_nom'))));
+    const drawn = waveforms.filter((w) => results.corners.some((c) => c.id === w.id && (c.status === 'diverged' || c.status === 'outside-limits' || c.id.endsWith('_nom'))));
     expect(plots.filter((p) => p.kind === 'wave')).toHaveLength(drawn.length);
-    for (const p of plots) {
+    // the demo's limits: frequency min and max, ZVS margin and six ratings, one stress figure each
+    expect(plots.filter((p) => p.kind === 'stress')).toHaveLength(9);
+    for (const p of plots.filter((x) => x.kind !== 'stress')) {
       expect(p.box).toBeGreaterThan(200);
       expect(p.lengths.length).toBe(p.declared);
       expect(p.declared).toBeGreaterThan(0);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { renderHtmlReport } from './index.js';
-import { limitText, renderLimits, renderMissed } from './limits.js';
+import { limitText, renderLimits, renderMissed, STRESS_ROWS_MAX } from './limits.js';
 import { predictStudy } from '../../run/study.js';
 import { makeDesign } from '../../../tests/support/design.js';
 
@@ -45,5 +45,19 @@ describe('limits in the HTML report', () => {
     expect(html.match(/<rect class="fwindow"/g)).toHaveLength(2); // one panel per Vin
     expect(html).toContain('! outside limits');
     expect(html).not.toContain('? outside-limits');
+  });
+  it('a large study shows the corners closest to each bound, closest first, and says so', () => {
+    const many = structuredClone(results);
+    many.corners = Array.from({ length: STRESS_ROWS_MAX + 10 }, (_, i) => {
+      const c = structuredClone(results.corners[1]!);
+      c.id = `c${i}`;
+      c.checks!.find((k) => k.limit === 'crVoltage')!.sim = { value: 300 + i, within: true };
+      return c;
+    });
+    const html = renderLimits(many, design);
+    expect(html).toContain(`crVoltage: the ${STRESS_ROWS_MAX} of ${STRESS_ROWS_MAX + 10} corners closest to the bound`);
+    const fig = html.slice(html.indexOf('data-limit="crVoltage"'));
+    expect(fig.indexOf(`>c${STRESS_ROWS_MAX + 9}<`)).toBeLessThan(fig.indexOf(`>c${STRESS_ROWS_MAX + 8}<`));
+    expect(fig).not.toContain('>c0<');
   });
 });

@@ -7,6 +7,7 @@ import type { Design } from '../../design/types.js';
 import type { CornerResult, Results } from '../../results/types.js';
 import type { LimitCheck } from '../../limits/types.js';
 import { describeCheck, LIMIT_UNIT, showBound, showValue } from '../../limits/describe.js';
+import { usage } from '../../limits/evaluate.js';
 import { esc, rowAnchor } from './escape.js';
 import { num } from './format.js';
 import { frame, linearScale, niceDomain, px } from './svg.js';
@@ -36,6 +37,9 @@ export function limitText(c: CornerResult): string {
   const flip = checks.some((k) => k.flip && k.fha.within) ? ' · FHA missed' : '';
   return out.length ? `! ${sim ? '' : 'FHA: '}outside ${out.join(', ')}${flip}` : `✓ ${sim ? '' : 'FHA: '}within limits${flip}`;
 }
+
+/** Corners per stress figure at most: a larger study shows those closest to (or beyond) the bound. */
+export const STRESS_ROWS_MAX = 40;
 
 const W = 460;
 const ROW = 16;
@@ -88,9 +92,12 @@ export function renderLimits(results: Results, design?: Design): string {
   if (limits.length === 0) return `${missingSection}<p>No numeric limits to show.</p>`;
   const derating = design?.limits?.derating ?? 1;
   const figs = limits.map((l) => {
-    const rows = withChecks.flatMap((c) => c.checks!.filter((k) => k.limit === l).map((k) => ({ c, k })));
+    const all = withChecks.flatMap((c) => c.checks!.filter((k) => k.limit === l).map((k) => ({ c, k })));
+    const use = (x: { k: LimitCheck }) => usage(x.k, x.k.sim ?? x.k.fha) ?? -1;
+    const rows = all.length > STRESS_ROWS_MAX ? [...all].sort((p, q) => use(q) - use(p)).slice(0, STRESS_ROWS_MAX) : all;
     const rating = l === 'frequency.min' || l === 'frequency.max' || l === 'zvsMargin' || derating === 1 ? null : (rows[0]!.k.bound as number) / derating;
-    return stressSvg(l, rows, rating);
+    const note = rows.length < all.length ? `<p class="caption">${l}: the ${rows.length} of ${all.length} corners closest to the bound, closest first.</p>` : '';
+    return `<div>${stressSvg(l, rows, rating)}${note}</div>`;
   });
   const key = '<p class="legend"><span>○ FHA</span><span>+ ideal model</span><span>◆ simulation (outlined red when outside)</span><span>solid line: the bound (rating × derating, or the window edge, or (1 + zvsMargin) × I<sub>zvs</sub>)</span><span>dashed line: the rating itself</span><span>⚠ FHA within, simulation outside; ↺ the reverse; ! outside</span></p>';
   return `<p class="caption">Every numeric limit at every corner: the value FHA, the ideal time-domain model and the simulation give, against the bound. Hover a mark for the values; marks link to the table rows.</p>${key}<div class="panels">${figs.join('')}</div>`;

@@ -19,10 +19,10 @@ export const WAVE_PANELS: PanelDef[] = [
   { title: 'Output voltage', unit: 'V', keys: (ex) => ['vout'].filter((k) => has(ex, k)), label: (k) => LABELS[k] ?? k },
 ];
 
-/** Corners that get a figure: the nominal corner (first id ending in _nom, else the first), then every diverged one. */
+/** Corners that get a figure: the nominal corner (first id ending in _nom, else the first), then every diverged or outside-limits one. */
 export function waveformCorners(results: Results): CornerResult[] {
   const nominal = results.corners.find((c) => c.id.endsWith('_nom')) ?? results.corners[0];
-  const picked = [nominal, ...results.corners.filter((c) => c.status === 'diverged')].filter((c): c is CornerResult => Boolean(c));
+  const picked = [nominal, ...results.corners.filter((c) => c.status === 'diverged' || c.status === 'outside-limits')].filter((c): c is CornerResult => Boolean(c));
   return [...new Map(picked.map((c) => [c.id, c])).values()];
 }
 
@@ -111,7 +111,7 @@ export function renderWaveforms(results: Results, waveforms: WaveformExcerpt[]):
   if (picked.length === 0) return '<p>No corners.</p>';
   const byId = new Map(waveforms.map((w) => [w.id, w]));
   const figs = picked.map((c, i) => figure(c, byId.get(c.id), i === 0));
-  const caption = '<p class="caption">The last two switching cycles of the measurement window, for the nominal corner and every diverged corner. Signs: tank current positive from the bridge into Lr; v(Cr) bridge side minus transformer side; ▾ and the faint vertical lines mark the high-side gate turn-on edges.</p>';
+  const caption = '<p class="caption">The last two switching cycles of the measurement window, for the nominal corner and every diverged or outside-limits corner. Signs: tank current positive from the bridge into Lr; v(Cr) bridge side minus transformer side; ▾ and the faint vertical lines mark the high-side gate turn-on edges.</p>';
   const open = figs.slice(0, WAVES_OPEN).join('');
   const rest = figs.length > WAVES_OPEN
     ? `<details class="more" id="more-waves"><summary>${figs.length - WAVES_OPEN} more diverged corners (open to draw)</summary><template><div class="waves">${figs.slice(WAVES_OPEN).join('')}</div></template></details>` : '';
