@@ -1,5 +1,6 @@
 import type { BaselineReport, Results } from '../results/types.js';
 import { COMPARED } from './compare.js';
+import { plain } from '../units/display.js';
 
 /** Default relative change of a simulated metric that counts as a regression against a baseline. */
 export const BASELINE_TOLERANCE = 0.01;
@@ -55,6 +56,4 @@ export function renderBaseline(r: BaselineReport): string {
   return `${lines.join('\n')}\n`;
 }
 
-function fmtCheck(v: unknown): string {
-  return typeof v === 'number' ? Number(v.toPrecision(5)).toString() : String(v);
-}
+const fmtCheck = (v: unknown): string => plain(v, 5);

@@ -2,6 +2,7 @@ import { effectiveTurnsRatio } from '../design/transformer.js';
 import type { Design, ExplicitCorner, LoadSpec } from '../design/types.js';
 import type { Corner, TolSide } from './types.js';
 import { sampleCorners } from './random.js';
+import { idNumber, num } from '../units/index.js';
 
 /** Load resistance in ohm: %, W and A are converted at output.voltage; ohm is used as is. */
 export function loadResistance(spec: LoadSpec, design: Design): number {
@@ -14,19 +15,14 @@ export function loadResistance(spec: LoadSpec, design: Design): number {
   }
 }
 
-/** Compact, file-name-safe rendering of a number: 6 significant digits, '.' -> 'p', '-' -> 'm'. */
-export function idNumber(x: number): string {
-  const s = Number(x.toPrecision(6)).toString();
-  if (/e/i.test(s)) return s.replace('.', 'p').replace('+', '').replace('-', 'm').toLowerCase();
-  return s.replace('.', 'p').replace('-', 'm');
-}
+export { idNumber };
 
 export function loadLabel(spec: LoadSpec): string {
   switch (spec.kind) {
-    case 'percent': return `${Number((spec.value * 100).toPrecision(6))}%`;
-    case 'watt': return `${Number(spec.value.toPrecision(6))} W`;
-    case 'ampere': return `${Number(spec.value.toPrecision(6))} A`;
-    case 'ohm': return `${Number(spec.value.toPrecision(6))} ohm`;
+    case 'percent': return `${num(spec.value * 100, 6)}%`;
+    case 'watt': return `${num(spec.value, 6)} W`;
+    case 'ampere': return `${num(spec.value, 6)} A`;
+    case 'ohm': return `${num(spec.value, 6)} ohm`;
   }
 }
 

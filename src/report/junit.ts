@@ -2,6 +2,7 @@ import type { CornerResult, Results } from '../results/types.js';
 import type { LimitCheck } from '../limits/types.js';
 import { describeCheck } from '../limits/describe.js';
 import { failingDivergences, type FailOn } from '../results/gate.js';
+import { plain } from '../units/display.js';
 
 export function xmlEscape(s: string): string {
   return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' })[c]!)
@@ -95,6 +96,4 @@ function measuredOutcome(c: CornerResult): Outcome {
     : { kind: 'failure', message: `simulation misses the measured point by more than ${(m.tolerance * 100).toFixed(1)} %`, text: gaps.join('\n') };
 }
 
-function fmt(v: unknown): string {
-  return typeof v === 'number' ? Number(v.toPrecision(5)).toString() : String(v);
-}
+const fmt = (v: unknown): string => plain(v, 5);

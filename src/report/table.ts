@@ -1,6 +1,7 @@
 import type { CornerResult, Results } from '../results/types.js';
 import { worstCheck } from '../limits/evaluate.js';
 import { describeCheck, showUsage } from '../limits/describe.js';
+import { num as fmtNum } from '../units/display.js';
 
 export interface TableOptions {
   /** ANSI emphasis for flagged cells and statuses (only on a TTY). @default false */
@@ -10,10 +11,7 @@ export interface TableOptions {
 const pad = (s: string, w: number) => (s.length >= w ? s : s + ' '.repeat(w - s.length));
 const lpad = (s: string, w: number) => (s.length >= w ? s : ' '.repeat(w - s.length) + s);
 
-function num(x: number | null | undefined, digits = 4): string {
-  if (x === null || x === undefined || !Number.isFinite(x)) return '-';
-  return Number(x.toPrecision(digits)).toString();
-}
+const num = (x: number | null | undefined, digits = 4): string => fmtNum(x, digits, 1, '-');
 
 function yn(b: boolean | null | undefined): string {
   return b === null || b === undefined ? '-' : b ? 'yes' : 'NO';

@@ -3,6 +3,12 @@ const OUT_PREFIX: Record<number, string> = {
   [-15]: 'f', [-12]: 'p', [-9]: 'n', [-6]: 'u', [-3]: 'm', 0: '', 3: 'k', 6: 'M', 9: 'G', 12: 'T',
 };
 
+/** Options of formatSi. */
+export interface FormatSiOptions {
+  /** Spelling of the micro prefix. @default 'u' (7-bit; the HTML report passes the micro sign) */
+  micro?: string;
+}
+
 /**
  * Format an SI value for people: `formatSi(62e-6, 'H')` -> `"62 uH"`, `formatSi(101234, 'Hz')` ->
  * `"101.2 kHz"`. `digits` significant digits (default 4), trailing zeros dropped, prefixes f..T.
@@ -10,7 +16,7 @@ const OUT_PREFIX: Record<number, string> = {
  * SPICE and is refused by `parseQuantity`; with a unit, `M` is SI mega (`"2 Mohm"`), which
  * `parseQuantity` reads back the same way. Non-finite values print as `NaN` / `Infinity`.
  */
-export function formatSi(value: number, unit: string, digits = 4): string {
+export function formatSi(value: number, unit: string, digits = 4, opts: FormatSiOptions = {}): string {
   const join = (num: string, prefix: string): string => {
     const tail = `${prefix}${unit}`;
     return tail === '' ? num : `${num} ${tail}`;
@@ -27,7 +33,7 @@ export function formatSi(value: number, unit: string, digits = 4): string {
     exp += 3;
     mant = Number((abs / 10 ** exp).toPrecision(d));
   }
-  const prefix = exp === 6 && unit === '' ? 'meg' : OUT_PREFIX[exp];
+  const prefix = exp === 6 && unit === '' ? 'meg' : exp === -6 && opts.micro ? opts.micro : OUT_PREFIX[exp];
   return join(`${sign}${mant}`, prefix);
 }
 
