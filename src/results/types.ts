@@ -8,6 +8,7 @@ import type { LimitCheck } from '../limits/types.js';
 import type { MeasuredReport, MeasuredSummary } from '../measured/types.js';
 
 export type { ComparisonRow, Divergence } from '../compare/types.js';
+import type { ShardInfo } from './merge.js';
 export type { LimitCheck, CheckSide, LimitName } from '../limits/types.js';
 
 export type CornerStatus = 'predicted' | 'unreachable' | 'ok' | 'diverged' | 'failed' | 'not-settled' | 'outside-limits'
@@ -123,6 +124,8 @@ export interface Results {
   measured?: MeasuredReport;
   /** Monte Carlo runs (tolerances.corners: random): yield, confirmation, sensitivity; computed from `corners` alone. */
   statistics?: MonteCarloStatistics;
+  /** A shard's place in the plan (`run --shard K/N`); absent in a whole or merged study. */
+  shard?: ShardInfo;
 }
 
 export interface BaselineReport {
