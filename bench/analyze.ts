@@ -1,5 +1,5 @@
 /** Figures derived from the measurements: Vout errors against the references, means per method, target verdicts. */
-import type { SeedMethod } from '../src/run/seed.js';
+import type { SeedMethod } from '../src/plan/start.js';
 import { WINDOW_CYCLES } from '../src/run/steady.js';
 import { refKey, type Reference } from './reference.js';
 import { METHODS, type SettleRow } from './settling.js';

@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import type { SimEngine } from '../src/engine/index.js';
 import { expandCorners } from '../src/corners/expand.js';
 import { createFileCache } from '../src/run/cache.js';
-import { startPoint } from '../src/run/seed.js';
+import { startPoint } from '../src/plan/start.js';
 import { predictCorner } from '../src/fha/predict.js';
 import { runStudy } from '../src/run/study.js';
 import { renderResultsJson } from '../src/report/json.js';

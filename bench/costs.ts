@@ -6,7 +6,7 @@
 import { createEngine, type EngineName } from '../src/engine/index.js';
 import { expandCorners } from '../src/corners/expand.js';
 import { predictCorner } from '../src/fha/predict.js';
-import { startPoint } from '../src/run/seed.js';
+import { startPoint } from '../src/plan/start.js';
 import { buildDeck } from '../src/netlist/deck.js';
 import { WINDOW_CYCLES } from '../src/run/steady.js';
 import type { BenchDesign } from './settling.js';

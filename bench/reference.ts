@@ -10,7 +10,7 @@ import type { Corner } from '../src/corners/types.js';
 import type { SimEngine } from '../src/engine/index.js';
 import { mapPool } from '../src/engine/index.js';
 import { predictCorner } from '../src/fha/predict.js';
-import { startPoint } from '../src/run/seed.js';
+import { startPoint } from '../src/plan/start.js';
 import { buildDeck } from '../src/netlist/deck.js';
 import { finalState, toWaveforms } from '../src/netlist/waveforms.js';
 import { makeSpan, spanAverage } from '../src/measure/index.js';

@@ -9,7 +9,7 @@ import type { SimEngine } from '../src/engine/index.js';
 import { expandCorners } from '../src/corners/expand.js';
 import { predictCorner } from '../src/fha/predict.js';
 import { simulateCorner } from '../src/run/corner.js';
-import { startPoint, type SeedMethod } from '../src/run/seed.js';
+import { startPoint, type SeedMethod } from '../src/plan/start.js';
 import { simulateSteady } from '../src/run/steady.js';
 import { instrument, log } from './util.js';
 

@@ -3,7 +3,7 @@ import type { Design } from '../design/types.js';
 import { expandCorners, filterCorners } from '../corners/expand.js';
 import { predictCorner } from '../fha/predict.js';
 import { buildDeck } from '../netlist/deck.js';
-import { startPoint } from '../run/seed.js';
+import { startPoint } from '../plan/start.js';
 import { withHandMeasurements } from '../netlist/hand.js';
 import { csvField } from '../report/csv.js';
 import { insideDir, writeFilesAtomic } from '../run/files.js';

@@ -6,7 +6,7 @@ import type { Corner } from '../corners/types.js';
 import type { CornerCache } from './study.js';
 import type { CornerOutcome } from './corner.js';
 import { buildDeck } from '../netlist/deck.js';
-import type { StartPoint } from './seed.js';
+import type { StartPoint } from '../plan/start.js';
 import { writeFilesAtomic } from './files.js';
 import { TOOL_VERSION } from '../version.js';
 

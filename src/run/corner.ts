@@ -11,7 +11,7 @@ import { simulateSteady, WINDOW_CYCLES } from './steady.js';
 import { deadTimeProblem, regulate, type RegulateResult } from './regulate.js';
 import { unreachableResult } from './unreachable.js';
 import { formatSi } from '../units/index.js';
-import { startPoint, type SeedMethod, type StartPoint } from './seed.js';
+import { startPoint, type SeedMethod, type StartPoint } from '../plan/start.js';
 import { excerpt } from '../report/excerpt.js';
 import { idealCorner, withIdeal, type IdealOutcome } from '../ideal/index.js';
 

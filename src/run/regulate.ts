@@ -24,7 +24,6 @@ export interface RegulateResult {
   deadTime?: { fs: number; message: string };
 }
 
-export { fhaSlope } from './seed.js';
 
 /** The simulated point nearest to an unreachable target: the highest output the search found. */
 export interface ClosestPoint {

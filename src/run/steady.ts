@@ -8,7 +8,7 @@ import { runWithRetries, ZERO_START_LABEL } from '../engine/retry.js';
 import { finalState, toWaveforms } from '../netlist/waveforms.js';
 import { makeSpan, measure, spanAverage } from '../measure/index.js';
 import { isSettled, stateBalance, type StateBalance } from '../measure/balance.js';
-import { predictCorner } from '../fha/predict.js';
+import { outputTimeConstant } from '../fha/dynamics.js';
 import { equilibriumVoltage, secantResistance, shootState, slowMode, type SlowMode, type SlowPoint } from './shooting.js';
 
 /** Settling and measurement window: whole switching cycles. */
@@ -52,21 +52,6 @@ export interface SteadyResult {
   windowStart: number;
   state?: DeckSeed;
   attempts: Attempt[];
-}
-
-/**
- * Time constant of the slow output mode, s: Co (RL || Rth), where Rth = -dVo/dIo is the
- * converter's output resistance at this frequency from FHA (twice that, as FHA may err), capped
- * at RL Co. It turns a measured output slope into the error that is left to settle.
- */
-export function outputTimeConstant(design: Design, corner: Corner, fs: number): number {
-  const rl = corner.load;
-  const vo = (r: number) => predictCorner(design, { ...corner, fs, load: r }).vout ?? 0;
-  const v1 = vo(rl);
-  const v2 = vo(rl * 1.01);
-  const rth = Math.max(0, (2 * -(v2 - v1)) / (v2 / (rl * 1.01) - v1 / rl));
-  const par = Number.isFinite(rth) ? (rth * rl) / (rth + rl || 1) : rl;
-  return design.output.capacitance * Math.min(Math.max(par, 0), rl);
 }
 
 /**

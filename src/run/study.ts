@@ -8,7 +8,7 @@ import { compareCorner } from '../compare/compare.js';
 import { evaluateLimits } from '../limits/evaluate.js';
 import { envelope, failed as failedCorner, predicted, simulated } from '../results/build.js';
 import { simulateCorner, type CornerOutcome } from './corner.js';
-import { startPoint, type StartPoint } from './seed.js';
+import { startPoint, type StartPoint } from '../plan/start.js';
 import { mapPool } from '../engine/pool.js';
 import { idealCorner, withIdeal, type IdealOutcome } from '../ideal/index.js';
 import { attachMeasured, measuredCorners, measuredReport, type MeasuredPoint } from '../measured/index.js';

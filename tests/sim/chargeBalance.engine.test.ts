@@ -11,7 +11,7 @@ import { toWaveforms } from '../../src/netlist/waveforms.js';
 import { measure } from '../../src/measure/index.js';
 import { stateBalance } from '../../src/measure/balance.js';
 import { simulateCorner } from '../../src/run/corner.js';
-import { startPoint } from '../../src/run/seed.js';
+import { startPoint } from '../../src/plan/start.js';
 import { loadDemo } from '../support/demo.js';
 import type { Design } from '../../src/design/types.js';
 import type { Corner } from '../../src/corners/types.js';

@@ -6,7 +6,7 @@ import { fhaSeed } from '../netlist/fhaState.js';
 import { solveFrequency, solveSteadyState, type SeedState } from '../tdmodel/index.js';
 import { modelParams } from '../ideal/params.js';
 import type { IdealOutcome } from '../ideal/metrics.js';
-import { predictCorner } from '../fha/predict.js';
+import { fhaSlope } from '../fha/dynamics.js';
 
 /**
  * How a simulation is started: 'model' (default) from the periodic state of the time-domain model
@@ -25,13 +25,6 @@ export interface StartPoint {
 
 function fromModel(s: SeedState): DeckSeed {
   return { vo: s.vo, ir: s.ir, im: s.im, vcr: s.vcr, va: s.vNode[0] ?? 0, vb: s.vNode[1] ?? 0 };
-}
-
-/** FHA slope dVo/dfs at a frequency, V/Hz (negative on the inductive branch). */
-export function fhaSlope(design: Design, corner: Corner, fs: number): number {
-  const h = fs * 0.005;
-  const v = (f: number) => predictCorner(design, { ...corner, fs: f }).vout ?? 0;
-  return (v(fs + h) - v(fs - h)) / (2 * h);
 }
 
 /** Normalised frequencies fs/fr inside which the time-domain model is used for the start. */
