@@ -5,7 +5,7 @@
 import type { IdealMetrics, IdealOutcome } from './metrics.js';
 import type { CornerResult } from '../results/types.js';
 
-export { idealCorner, measureState, IDEAL_FN_RANGE, type IdealMetrics, type IdealOutcome } from './metrics.js';
+export { idealCorner, measureState, IDEAL_FN_RANGE, SCREENING_POINTS, type IdealMetrics, type IdealOutcome, type IdealOptions } from './metrics.js';
 export { modelParams } from './params.js';
 export { idealWaveforms } from './waveforms.js';
 

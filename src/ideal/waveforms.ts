@@ -31,7 +31,9 @@ export function idealWaveforms(p: TdParams, tr: PeriodTrace, vo: number, load: n
     return out;
   };
   const t = new Float64Array(len);
-  for (let r = 0; r < TRACE_PERIODS; r++) for (let k = 0; k < m; k++) t[r * m + k] = tr.t[k] + r * period;
+  // the trace's last time may exceed 1/fs by a rounding error; capped, the periods laid end to end
+  // never run backwards (rounding of the sums is monotonic)
+  for (let r = 0; r < TRACE_PERIODS; r++) for (let k = 0; k < m; k++) t[r * m + k] = Math.min(tr.t[k], period) + r * period;
   const vin = p.vin;
   const isec = (k: number) => tr.ir[k] - tr.im[k];
   const hiCurrent = (k: number) => sideCurrent(tr, k, 'high');

@@ -4,7 +4,7 @@ import type { CornerResult } from '../results/types.js';
 import { expandCorners, filterCorners } from '../corners/expand.js';
 import { predictCorner } from '../fha/predict.js';
 import { envelope, predicted } from '../results/build.js';
-import { idealCorner, withIdeal } from '../ideal/index.js';
+import { idealCorner, withIdeal, SCREENING_POINTS } from '../ideal/index.js';
 import { monteCarloStatistics, selectConfirm, type ConfirmPick } from '../statistics/index.js';
 import { evaluateLimits } from '../limits/evaluate.js';
 import { RANDOM_DEFAULTS } from '../corners/random.js';
@@ -14,12 +14,12 @@ import { runStudy, type StudyOptions, type StudyOutput, type StudyProgress } fro
 export const DEFAULT_CONFIRM = 20;
 
 /**
- * Screening of one corner: FHA and the ideal time-domain model, the limits checked on both.
- * Status `screened`: no simulation ran.
+ * Screening of one corner: FHA and the ideal time-domain model (sampled at SCREENING_POINTS per
+ * half period), the limits checked on both. Status `screened`: no simulation ran.
  */
 export function screenCorner(design: Design, corner: Corner): CornerResult {
   const fha = predictCorner(design, corner);
-  const ideal = idealCorner(design, corner, fha);
+  const ideal = idealCorner(design, corner, fha, { pointsPerHalf: SCREENING_POINTS });
   return { ...withIdeal(predicted(corner, fha, evaluateLimits(design, corner.vin, fha, null, ideal.ideal)), ideal), status: 'screened' };
 }
 

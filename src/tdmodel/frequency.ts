@@ -1,4 +1,5 @@
 import { solveSteadyState } from './periodic.js';
+import { solveRegulatedDirect } from './regulated.js';
 import { brent } from './root.js';
 import { checkParams } from './model.js';
 import type { FrequencyResult, SteadyStateResult, TdParams } from './types.js';
@@ -11,6 +12,8 @@ export interface FrequencyOptions {
   fsMin?: number;
   /** Relative tolerance on fs. @default 1e-9 */
   tolerance?: number;
+  /** Try the direct Newton solve of state and frequency first (regulated.ts). @default true */
+  direct?: boolean;
 }
 
 /**
@@ -44,6 +47,17 @@ export function solveFrequency(p: TdParams, rl: number, voTarget: number, fsGues
   };
   const inductive = (r: SteadyStateResult | null) => r !== null && r.turnOffCurrent > 0;
   const fail = (reason: string): FrequencyResult => ({ fs: null, reason, evaluations });
+
+  // Fast path: state and frequency in one Newton solve from the guess (regulated.ts), accepted
+  // when it lands on the falling inductive branch (checked 2 % higher, as the search does);
+  // otherwise the search below, which brackets the branch explicitly.
+  const direct = opts.direct === false ? null : solveRegulatedDirect(p, rl, voTarget, Math.min(Math.max(fsGuess, fsMin), fsMax), { fsMin, fsMax });
+  if (direct) {
+    evaluations++;
+    last = direct.state;
+    const up = direct.fs * 1.02 <= fsMax ? at(direct.fs * 1.02) : null;
+    if (inductive(up) && up!.vo < direct.state.vo) return { fs: direct.fs, state: direct.state, evaluations };
+  }
 
   // Onto the falling inductive branch: inductive at f0 and a lower output at 1.02 f0.
   let f0 = Math.min(Math.max(fsGuess, fsMin), fsMax / 1.02);
