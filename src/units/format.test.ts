@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { formatSi, formatSpice } from './format.js';
+import { formatSi, formatSpice, formatSpiceEng } from './format.js';
 import { parseQuantity } from './parse.js';
 
 describe('formatSi', () => {
@@ -59,5 +59,39 @@ describe('formatSpice', () => {
   it('refuses NaN and Infinity', () => {
     expect(() => formatSpice(NaN)).toThrow(RangeError);
     expect(() => formatSpice(Infinity)).toThrow(RangeError);
+  });
+});
+
+describe('formatSpiceEng', () => {
+  // SPICE scale suffixes (common practice; ngspice manual, "Scale factors"): f p n u m k meg g t.
+  const SCALE: Record<string, number> = { f: -15, p: -12, n: -9, u: -6, m: -3, '': 0, k: 3, meg: 6, g: 9, t: 12 };
+  const readBack = (text: string): number => {
+    const m = /^(-?\d+(?:\.\d+)?)(?:(f|p|n|u|m|k|meg|g|t)|e(-?\d+))?$/.exec(text);
+    if (!m) throw new Error(`not a compact SPICE number: ${text}`);
+    return Number(`${m[1]}e${m[3] ?? SCALE[m[2] ?? '']}`);
+  };
+  it('writes design values short, with lower-case suffixes (meg, never M)', () => {
+    expect([50e-6, 90e3, 4.7e-9, 1.5e6, 1e-4, 0.05, 400, 0, 1e9, 300e-12, 60e-6 * 1.05].map((x) => formatSpiceEng(x)))
+      .toEqual(['50u', '90k', '4.7n', '1.5meg', '100u', '50m', '400', '0', '1g', '300p', '63u']);
+    expect(formatSpiceEng(-2.5e-3)).toBe('-2.5m');
+    expect(formatSpiceEng(1.2e-18)).toBe('1.2e-18');
+  });
+  it('uses 6 digits where they read back within 1e-12, more where they do not', () => {
+    expect(formatSpiceEng(98545.89449726851)).toBe('98.5458944973k');
+    expect(formatSpiceEng(129999.99999999479)).toBe('130k'); // within 1e-12 of 130 kHz
+    expect(formatSpiceEng(1234567)).toBe('1.234567meg');
+  });
+  it('reads back within 1e-12 relative, with at most 13 significant digits', () => {
+    fc.assert(
+      fc.property(fc.double({ min: -1e20, max: 1e20, noNaN: true }).filter((x) => x !== 0 && Math.abs(x) > 1e-300), (x) => {
+        const text = formatSpiceEng(x);
+        expect(Math.abs(readBack(text) - x)).toBeLessThanOrEqual(1e-12 * Math.abs(x));
+        expect(text.replace(/^-/, '').replace(/[a-z].*$/, '').replace('.', '').replace(/^0+/, '').length).toBeLessThanOrEqual(13);
+      }),
+    );
+  });
+  it('refuses NaN and Infinity', () => {
+    expect(() => formatSpiceEng(NaN)).toThrow(RangeError);
+    expect(() => formatSpiceEng(-Infinity)).toThrow(RangeError);
   });
 });

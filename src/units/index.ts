@@ -1,7 +1,7 @@
 export { parseQuantity, type ParseResult } from './parse.js';
 export { parseLoad } from './parseLoad.js';
 export type { LoadSpec } from './load.js';
-export { formatSi, formatSpice, type FormatSiOptions } from './format.js';
+export { formatSi, formatSpice, formatSpiceEng, type FormatSiOptions } from './format.js';
 export { eng, finite, idNumber, num, pct, pctAbs, plain, sig } from './display.js';
 export {
   KIND_EXAMPLE,
