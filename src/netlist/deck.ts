@@ -3,7 +3,8 @@ import type { Corner } from '../corners/types.js';
 import type { DeckSeed, StepProfile } from './types.js';
 import { TEMPLATES } from './templateText.js';
 import { renderTemplate, safeName, type TemplateValue } from './render.js';
-import { diodeModelCard, diodeInstance, switchInstance, userModelCards } from './devices.js';
+import { checkDeckExpressions, type ParamEntry } from './params.js';
+import { diodeFitCurrent, diodeModelCard, diodeInstance, switchInstance, userModelCards } from './devices.js';
 
 /**
  * Accuracy profiles: trapezoidal integration only with reltol 1e-4 (at the default 1e-3 it rang in a
@@ -77,19 +78,48 @@ function secondaryCurrents(design: Design, n: number, seed: DeckSeed) {
   return { is1: -Math.max(isec, 0) * n, is2: Math.max(-isec, 0) * n };
 }
 
+/** The corner's inputs, in the order the deck lists them (the fitted diode's only when it is used). */
+function inputParams(design: Design, corner: Corner, fs: number): ParamEntry[] {
+  const fitted: ParamEntry[] = design.devices.diodeModel ? [] : [
+    ['vf', design.rectifier.forwardVoltage],
+    ['rdiode', design.rectifier.resistance],
+    ['ifit', diodeFitCurrent(design)],
+  ];
+  return [
+    ['vin', corner.vin], ['fs', fs], ['lr', corner.lr], ['cr', corner.cr], ['lm', corner.lm], ['turns', corner.turnsRatio],
+    ['tdead', design.switches.deadTime], ['coss', design.switches.coss], ['rdson', design.switches.rdsOn],
+    ['rload', corner.load], ['cout', design.output.capacitance], ['esr', design.output.esr], ...fitted, ['rcr', CR_ESR],
+  ];
+}
+
+/** Everything computed from the inputs, as expressions (same formulas as the numbers buildDeck returns). */
+function derivedParams(integrated: boolean): ParamEntry[] {
+  const e = (expr: string) => ({ expr });
+  return [
+    ['period', e('1/fs')],
+    // gate edge: a tenth of the dead time, at most a thousandth of the period
+    ['gedge', e('min(tdead/10, period/1000)')],
+    ['gwidth', e('period/2-tdead-gedge')],
+    ['ls', e('lm/(turns*turns)')],
+    ['lp', e(integrated ? 'lr+lm' : 'lm')],
+    ['kps', integrated ? e('sqrt(lm/(lr+lm))') : 1],
+    ['resr', e('max(esr, 1e-6)')],
+    ['tstep', e('period/steps')],
+    ['tstop', e('cycles*period')],
+    ['tstart', e('(cycles-savecycles)*period')],
+  ];
+}
+
 /** Render the complete deck of one operating point. Pure: same request, same text. */
 export function buildDeck(req: DeckRequest): Deck {
   const { design, corner, fs, seed } = req;
   const T = 1 / fs;
-  const td = design.switches.deadTime;
-  const gedge = Math.min(td / 10, T / 1000);
   const profile = req.profile ?? STEP_PROFILES[design.simulation.accuracy];
   const n = corner.turnsRatio;
   const integrated = design.tank.integrated;
   const fb = design.topology.inverter === 'full-bridge';
   const fbr = design.topology.rectifier === 'full-bridge';
   const save = savedVectors(design);
-  const tmax = T / profile.stepsPerPeriod;
   const tstop = req.cycles * T;
   const tstart = (req.cycles - req.saveCycles) * T;
   const { is1, is2 } = secondaryCurrents(design, n, seed);
@@ -101,30 +131,19 @@ export function buildDeck(req: DeckRequest): Deck {
     corner: { raw: safeName(corner.id) },
     inverter: { raw: design.topology.inverter },
     rectifier: { raw: design.topology.rectifier },
+    inputs: { params: inputParams(design, corner, fs) },
+    run: { params: [['cycles', req.cycles], ['savecycles', req.saveCycles], ['steps', profile.stepsPerPeriod]] },
+    derived: { params: derivedParams(integrated) },
     method: { raw: profile.method },
     reltol: profile.reltol,
-    rdson: design.switches.rdsOn,
-    vin: corner.vin,
-    g1delay: td - gedge / 2,
-    g2delay: T / 2 + td - gedge / 2,
-    gedge,
-    gwidth: T / 2 - td - gedge,
-    period: T,
     switch1: sw(1, 'd1', 'a', 'g1'),
     switch2: sw(2, 'd2', '0', 'g2'),
     switch3: sw(3, 'd3', 'b', 'g2'),
     switch4: sw(4, 'd4', '0', 'g1'),
-    coss: design.switches.coss,
     vcs1: corner.vin - seed.va,
     vcs2: seed.va,
     vcs3: corner.vin - seed.vb,
     vcs4: seed.vb,
-    lr: corner.lr,
-    cr: corner.cr,
-    crEsr: CR_ESR,
-    lp: integrated ? corner.lr + corner.lm : corner.lm,
-    k: integrated ? Math.sqrt(corner.lm / (corner.lr + corner.lm)) : 1,
-    ls: corner.lm / (n * n),
     ir0: seed.ir,
     vcr0: seed.vcr,
     is1,
@@ -133,16 +152,9 @@ export function buildDeck(req: DeckRequest): Deck {
     diode2: fbr ? di(2, '0', 'r2') : di(2, 'r2', 'out'),
     diode3: di(3, 'r3', 'out'),
     diode4: di(4, '0', 'r4'),
-    esr: Math.max(design.output.esr, 1e-6),
-    co: design.output.capacitance,
     vo0: seed.vo,
-    load: corner.load,
     save: { raw: save.join(' ') },
     shunts: { raw: circuitNodes(design).map((node) => `Rsh_${node} ${node} 0 1e9`).join('\n') },
-    tstep: tmax,
-    tstop,
-    tstart,
-    tmax,
   };
   const parts = [
     TEMPLATES['header']!,
@@ -153,6 +165,7 @@ export function buildDeck(req: DeckRequest): Deck {
     TEMPLATES['footer']!,
   ];
   const body = renderTemplate(parts.join(''), values);
+  checkDeckExpressions(body);
   const text = insertUserModels(body, design);
   return { text, save, period: T, tstart, tstop };
 }

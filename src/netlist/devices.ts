@@ -1,5 +1,4 @@
 import type { Design } from '../design/types.js';
-import { spiceNumber } from './render.js';
 
 /** Thermal voltage kT/q at 27 degC (300.15 K), V; CODATA 2018 exact constants. */
 export const THERMAL_VOLTAGE = (1.380649e-23 * 300.15) / 1.602176634e-19;
@@ -27,10 +26,18 @@ export function diodeFit(design: Design): { is: number; n: number; rs: number } 
   return { is, n: vf / (THERMAL_VOLTAGE * Math.log(1 / DIODE_LEAKAGE_RATIO)), rs: Math.max(design.rectifier.resistance, 1e-6) };
 }
 
+/** kT/q ln(1/DIODE_LEAKAGE_RATIO), V: the emission coefficient is the knee voltage over this. */
+const FIT_VOLTS = THERMAL_VOLTAGE * Math.log(1 / DIODE_LEAKAGE_RATIO);
+
+/**
+ * The fitted diode's model card, written over the deck parameters vf, rdiode and ifit (see diodeFit;
+ * the same clamps as expressions), or '' when the design brings its own diode model.
+ */
 export function diodeModelCard(design: Design): string {
   if (design.devices.diodeModel) return '';
-  const f = diodeFit(design);
-  return `.model tk_d d(is=${spiceNumber(f.is)} n=${spiceNumber(f.n)} rs=${spiceNumber(f.rs)} cjo=0 tt=0)\n`;
+  const is = `ifit*${String(DIODE_LEAKAGE_RATIO)}`;
+  const n = `max(vf, ${String(MIN_KNEE_VOLTAGE)})/${String(FIT_VOLTS)}`;
+  return `.model tk_d d(is={${is}} n={${n}} rs={max(rdiode, 1e-6)} cjo=0 tt=0)\n`;
 }
 
 /** Rectifier diode i between anode and cathode: the fitted model, or the user's model or 2-pin subcircuit. */
