@@ -27,8 +27,10 @@ function checksFor(c: ReferenceCase, sim: NonNullable<CornerResult['sim']>, ref:
     { name: 'Cr peak', tool: sim.crVoltagePeak, ref: ref.crpeak!, tol: 0.015, scale: swing },
     { name: 'diode reverse', tool: sim.diodeReverseVoltage, ref: ref.diodevr!, tol: 0.01 },
     // hard switching (capacitive deck) puts Coss discharge spikes into the switch current whose
-    // RMS depends on the time step of either simulation: 5 % there
-    { name: 'switch rms', tool: sim.switchCurrentRms, ref: ref.swrms!, tol: c.zvs ? 0.015 : 0.05 },
+    // RMS depends on the time step of either simulation: the spike lasts Ron Coss = 15 ps, far
+    // below any time step. Measured on this case: a 1e-12 relative change of fs moved the tool's
+    // value between -3.9 % and -15.7 % of the reference (same deck, same engine), so 20 % there
+    { name: 'switch rms', tool: sim.switchCurrentRms, ref: ref.swrms!, tol: c.zvs ? 0.015 : 0.2 },
     { name: 'turn-off current', tool: sim.switchTurnOffCurrent, ref: ref.turnoff!, tol: 0.02 },
     { name: 'ripple rms', tool: sim.outputRippleCurrentRms, ref: ref.riprms!, tol: 0.02 },
   ];
