@@ -1,4 +1,5 @@
 /** RESULTS.md as a string, from one bench run's measurements. */
+import { renderScreening, type ScreeningCase } from './screening.js';
 import {
   CYCLES_STRETCH, CYCLES_TARGET, ENGINE_RATIO_TARGET, FHA_RATE_TARGET, FIRST_RUN_CYCLES, MEMORY_TARGET_MB, SIMS_TARGET,
   type MethodSummary, type ScoredRow,
@@ -39,6 +40,8 @@ export interface BenchData {
   capacitor: CapCase;
   /** Case 8, the ideal column (bench/ideal.ts). */
   ideal?: IdealCase;
+  /** Case 9, Monte Carlo screening (bench/screening.ts). */
+  screening?: ScreeningCase;
 }
 
 interface Target { name: string; target: string; figure: string; ok: boolean }
@@ -132,6 +135,7 @@ export function renderResults(d: BenchData): string {
     'Steady state needs the output capacitor charge-balanced (simulation.chargeBalanceTolerance) and the tank periodic, not only a steady Vout; a slow capacitor is brought to its equilibrium by a shooting step (src/run/shooting.ts). The extra corner is the demo at 340 V, 25 % load, fixed 80.51 kHz.', '',
     ...capLines(d.capacitor), '',
     ...(d.ideal ? ['## 8. The ideal column (demo and charger, cost per corner and agreement with the simulation, both engines)', '', ...idealLines(d.ideal), ''] : []),
+    ...(d.screening ? [renderScreening(d.screening)] : []),
     '## Cost drivers in the run path (informational)', '',
     ...S.saveCostLines(d.saveCost), '',
     '## Why targets were missed', '',

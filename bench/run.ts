@@ -21,6 +21,7 @@ import { measureCapacitors } from './capacitor.js';
 import { renderResults } from './report.js';
 import { elapsedS, log } from './util.js';
 import { measureIdealCase } from './ideal.js';
+import { measureScreening } from './screening.js';
 import { cpuSnapshot, foreignShare } from './cpu.js';
 
 const here = (p: string) => fileURLToPath(new URL(p, import.meta.url));
@@ -91,6 +92,8 @@ async function main(): Promise<void> {
   log('case 8: the ideal column (cost per corner, agreement with simulation on both engines)');
   const ideal = await measureIdealCase(designs);
   phaseDone('8. ideal column');
+  const screening = measureScreening(designs[0]!.design);
+  phaseDone('9. Monte Carlo screening');
   log('cost drivers: saved data per run');
   const saveCost = await measureSaveCost(designs[0]!, 3);
   phaseDone('cost drivers');
@@ -99,7 +102,7 @@ async function main(): Promise<void> {
   const text = renderResults({
     machine, date, totalS: elapsedS(), foreign, changed: sourcesChangedSince(startedAt), designs: designs.map((d) => ({ key: d.key, file: d.file, corners: expandCorners(d.design).length })),
     settleEngine, settle, refs: [...reqs.keys()].map((k) => refs.get(k)!), summaries: methodSummaries(settle, designs.map((d) => d.key)),
-    engines, fha, cache, memory, first, saveCost, capacitor, ideal,
+    engines, fha, cache, memory, first, saveCost, capacitor, ideal, screening,
   });
   const out = here('./RESULTS.md');
   await writeFile(out, text);

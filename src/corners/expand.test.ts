@@ -81,3 +81,15 @@ describe('corner ids', () => {
     expect(a[0]).toBe('v85p25_33p3pct_f90k_nom');
   });
 });
+
+describe('corner ids with corners: random', () => {
+  it('are the operating point plus _s and the sample number, at least 4 digits, samples innermost', () => {
+    const d = makeDesign({ operating: { vin: [390], load: [{ kind: 'percent', value: 1 }], ratedPower: 240, frequency: 'regulate', corners: [] },
+      tolerances: { lr: 0.05, cr: 0.05, lm: 0.1, corners: 'random', samples: 3, seed: 42, distribution: 'uniform' } });
+    expect(expandCorners(d).map((c) => c.id)).toEqual(['v390_100pct_reg_s0000', 'v390_100pct_reg_s0001', 'v390_100pct_reg_s0002']);
+    const many = expandCorners({ ...d, tolerances: { ...d.tolerances, samples: 10001 } });
+    expect(many[10000]!.id).toBe('v390_100pct_reg_s10000');
+    // the same seed gives the same values for the same sample number whatever the count
+    expect(many[2]).toEqual(expandCorners(d)[2]);
+  });
+});
