@@ -31,8 +31,9 @@ export function createProgress(stream: NodeJS.WriteStream, total: number, now: (
       const what = p.phase === 'screening' ? 'screened' : p.phase === 'confirming' ? 'confirmed' : 'corners';
       stream.write(`\r[${bar}] ${p.done}/${p.total} ${what}, ${p.failed} failed, ETA ${Number.isFinite(eta) ? `${Math.ceil(eta)} s` : '?'}   `);
     },
-    start() {
-      if (!tty) stream.write(`simulating ${total} corners\n`);
+    /** what: the opening line instead of "simulating N corners" (a Monte Carlo run screens first). */
+    start(what?: string) {
+      if (!tty) stream.write(`${what ?? `simulating ${total} corners`}\n`);
     },
     end() {
       if (tty) stream.write('\n');

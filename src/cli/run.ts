@@ -99,7 +99,9 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
     // started before the first corner, so a log shows at once how much work is coming
     const planned = filterCorners([...expandCorners(design), ...measuredCorners(design, measured?.points ?? [])], o.only).length;
     const progress = createProgress(process.stderr, planned);
-    progress.start();
+    progress.start(design.tolerances.corners === 'random'
+      ? `screening ${filterCorners(expandCorners(design), o.only).length} corners with FHA and the ideal model, then simulating up to ${design.simulation.confirm ?? 20} of them`
+      : undefined);
     const { results, waveforms, run } = await runStudy(design, {
       engine, jobs, only: o.only, signal: controller.signal,
       cache: o.cache ? createFileCache(o.cacheDir) : undefined,
