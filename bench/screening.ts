@@ -1,7 +1,7 @@
 /**
  * Case 9: Monte Carlo screening throughput. The demo design with `corners: random`, 1000 samples
  * x its 6 operating points = 6000 sample-corners, each through FHA, the ideal model (regulated
- * frequency solve, sampling, measurement) and the limit checks (run/montecarlo.ts screenCorner),
+ * frequency solve, sampling, measurement) and the limit checks (plan/plan.ts screenCorner),
  * on one core (one process, no workers). Side by side on a subset of the same corners: the
  * regulated frequency solve by the direct Newton against the bracketing search, and the screening
  * sampling against the default. Run alone: `node --import tsx bench/screening.ts` (prints a
@@ -14,7 +14,7 @@ import { expandCorners } from '../src/corners/expand.js';
 import { predictCorner } from '../src/fha/predict.js';
 import { idealCorner, modelParams, SCREENING_POINTS } from '../src/ideal/index.js';
 import { solveFrequency } from '../src/tdmodel/index.js';
-import { screenCorner } from '../src/run/montecarlo.js';
+import { screenCorner } from '../src/plan/plan.js';
 import { monteCarloStatistics } from '../src/statistics/index.js';
 import { cpuSnapshot, foreignShare } from './cpu.js';
 import { log, median } from './util.js';

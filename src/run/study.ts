@@ -2,17 +2,16 @@ import type { Design } from '../design/types.js';
 import type { Corner } from '../corners/types.js';
 import type { SimEngine } from '../engine/types.js';
 import type { CornerResult, Results, WaveformExcerpt } from '../results/types.js';
-import { expandCorners, filterCorners } from '../corners/expand.js';
-import { predictCorner } from '../fha/predict.js';
 import { compareCorner } from '../compare/compare.js';
 import { evaluateLimits } from '../limits/evaluate.js';
-import { envelope, failed as failedCorner, predicted, simulated } from '../results/build.js';
+import { envelope, failed as failedCorner, simulated } from '../results/build.js';
 import { simulateCorner, type CornerOutcome } from './corner.js';
-import { startPoint, type StartPoint } from '../plan/start.js';
+import type { StartPoint } from '../plan/start.js';
+import { planStudy, type PlanItem, type StudyPlan } from '../plan/plan.js';
+import { shardItems, type ShardSpec } from '../plan/shard.js';
 import { mapPool } from '../engine/pool.js';
-import { idealCorner, withIdeal, type IdealOutcome } from '../ideal/index.js';
-import { attachMeasured, measuredCorners, measuredReport, type MeasuredPoint } from '../measured/index.js';
-import { runMonteCarlo, monteCarloFacts } from './montecarlo.js';
+import { withIdeal } from '../ideal/index.js';
+import { attachMeasured, measuredReport, type MeasuredPoint } from '../measured/index.js';
 import { monteCarloStatistics } from '../statistics/index.js';
 
 export interface StudyProgress {
@@ -38,14 +37,14 @@ export interface StudyOptions {
   jobs?: number;
   /** Glob on corner ids. */
   only?: string;
-  /** Simulate exactly these corners instead of the design's (a Monte Carlo run's confirm set). */
-  corners?: Corner[];
   signal?: AbortSignal;
   cache?: CornerCache;
   onProgress?: (p: StudyProgress) => void;
   timeoutMs?: number;
   /** Measured prototype points: each becomes a fixed-frequency corner beside the design's own. */
   measured?: { file: string; points: readonly MeasuredPoint[] };
+  /** Run only this shard of the plan (1-based index K of N); the results carry `shard`. */
+  shard?: ShardSpec & { fingerprint: string };
 }
 
 /** Facts of one run that are not part of the (deterministic) results: what came from the cache. */
@@ -62,82 +61,101 @@ export interface StudyOutput {
   run: RunFacts;
 }
 
-/** FHA-only results (no engine): every corner predicted. */
+/** FHA-only results (no engine): every corner predicted (Monte Carlo: screened, with statistics). */
 export function predictStudy(design: Design, only?: string): Results {
-  const corners = filterCorners(expandCorners(design), only).map((c) => predictedWithChecks(design, c));
+  const plan = planStudy(design, { only });
+  const corners = plan.items.map((it) => it.prediction);
   const results = envelope(design, corners, { engine: null });
-  return design.tolerances.corners === 'random' ? { ...results, statistics: monteCarloStatistics(corners, monteCarloFacts(design)) } : results;
+  return plan.monteCarlo ? { ...results, statistics: monteCarloStatistics(corners, plan.monteCarlo.facts) } : results;
+}
+
+/** Run every corner of a design (see runPlan). */
+export async function runStudy(design: Design, opts: StudyOptions): Promise<StudyOutput> {
+  return runPlan(design, planStudy(design, { only: opts.only, measured: opts.measured }), opts);
 }
 
 /**
- * Run every corner of a design: FHA, decks, engine, measurement and the cross-check. A corner
- * that fails is reported as failed and the others go on; when the signal aborts, finished corners
- * are kept, the rest stay FHA-only and the results are marked incomplete.
+ * Run a plan (or one shard of it): FHA, decks, engine, measurement and the cross-check for every
+ * item to simulate; screened Monte Carlo corners keep their screening. A corner that fails is
+ * reported as failed and the others go on; when the signal aborts, finished corners are kept, the
+ * rest keep their prediction and the results are marked incomplete.
  */
-export async function runStudy(design: Design, opts: StudyOptions): Promise<StudyOutput> {
-  if (design.tolerances.corners === 'random' && !opts.corners) return runMonteCarlo(design, opts);
-  // a given corner list (a Monte Carlo confirm set) is run as it is, without measured points
-  const bench = opts.corners ? [] : measuredCorners(design, opts.measured?.points ?? []);
-  const points = new Map(bench.map((c, i) => [c.id, opts.measured!.points[i]]));
-  const corners = opts.corners ?? filterCorners([...expandCorners(design), ...bench], opts.only);
+export async function runPlan(design: Design, plan: StudyPlan, opts: StudyOptions): Promise<StudyOutput> {
+  const items = opts.shard ? shardItems(plan.items.map((it) => it.cost), opts.shard).map((i) => plan.items[i]!) : plan.items;
+  const work = items.filter((it) => it.simulate);
   const engineVersion = await opts.engine.version();
-  const outcomes: (CornerOutcome | undefined)[] = new Array(corners.length);
+  const outcomes = new Map<number, CornerOutcome>();
   let done = 0;
   let failed = 0;
   const cached = new Set<number>();
-  await mapPool(corners, opts.jobs ?? 1, async (corner, i) => {
+  if (plan.monteCarlo) {
+    items.forEach((it, i) => opts.onProgress?.({ phase: 'screening', done: i + 1, failed: 0, total: items.length, id: it.corner.id, status: it.prediction.status }));
+  }
+  const phase = plan.monteCarlo ? { phase: 'confirming' as const } : {};
+  await mapPool(work, opts.jobs ?? 1, async (item) => {
     if (opts.signal?.aborted) return;
-    const fha = predictCorner(design, corner);
-    const ideal = idealCorner(design, corner, fha);
-    const start = startPoint(design, corner, fha, 'model', ideal);
-    const key = opts.cache?.key(design, corner, engineVersion, start);
-    let out = key ? await opts.cache!.get(key) : undefined;
-    if (out) {
-      cached.add(i);
-      out = refreshComparison(design, corner, fha, ideal, out);
-    } else {
-      out = await simulateCorner(opts.engine, design, corner, fha, { signal: opts.signal, timeoutMs: opts.timeoutMs, start, ideal })
-        .catch((e: unknown): CornerOutcome => ({ result: withIdeal(failedCorner(corner, fha, { kind: 'measurement', message: e instanceof Error ? e.message : String(e) }, undefined,
-          evaluateLimits(design, corner.vin, fha, null, ideal.ideal)), ideal) }));
-      if (opts.signal?.aborted && out.result.status === 'failed') return; // interrupted, not a simulator failure
-      if (key && out.result.failure?.kind !== 'timeout') await opts.cache!.set(key, out);
-    }
-    outcomes[i] = out;
+    const out = await simulateItem(design, item, engineVersion, opts, () => cached.add(item.index));
+    if (!out) return;
+    outcomes.set(item.index, out);
     done++;
     if (out.result.status === 'failed') failed++;
-    opts.onProgress?.({ done, failed, total: corners.length, id: corner.id, status: out.result.status });
+    opts.onProgress?.({ ...phase, done, failed, total: work.length, id: item.corner.id, status: out.result.status });
   }, opts.signal).catch((e: unknown) => {
     if (!opts.signal?.aborted) throw e;
   });
-  // a corner never started keeps its FHA prediction
-  const results: CornerResult[] = corners.map((c, i) => outcomes[i]?.result ?? predictedWithChecks(design, c))
-    .map((r) => (points.has(r.id) ? attachMeasured(r, points.get(r.id)!, design.compare.measured) : r));
-  // not outcomes.some(): the array is sparse, and some() skips the holes of corners never started
-  const incomplete = corners.some((_, i) => outcomes[i] === undefined);
-  const env = envelope(design, results, { engine: { name: opts.engine.name, version: engineVersion }, incomplete });
-  if (opts.measured) env.measured = measuredReport(env, opts.measured.file, design.compare.measured);
+  // a corner never started keeps its prediction (a screened one its screening)
+  const results: CornerResult[] = items.map((it) => outcomes.get(it.index)?.result ?? it.prediction)
+    .map((r) => (plan.measured?.points.has(r.id) ? attachMeasured(r, plan.measured.points.get(r.id)!, design.compare.measured) : r));
+  const incomplete = work.some((it) => !outcomes.has(it.index));
+  const results_ = assembleResults(design, plan, results, { engine: { name: opts.engine.name, version: engineVersion }, incomplete });
+  if (opts.shard) {
+    results_.shard = { index: opts.shard.index, count: opts.shard.count, total: plan.items.length, items: items.map((it) => it.index), fingerprint: opts.shard.fingerprint };
+  }
   return {
-    results: env,
-    waveforms: outcomes.flatMap((o) => (o?.waveform ? [o.waveform] : [])),
+    results: results_,
+    waveforms: items.flatMap((it) => outcomes.get(it.index)?.waveform ?? []),
     run: {
-      fromCache: corners.filter((_, i) => cached.has(i)).map((c) => c.id),
-      simulated: results.reduce((s, c, i) => s + (c.sim && !cached.has(i) ? c.sim.simulations : 0), 0),
+      fromCache: items.filter((it) => cached.has(it.index)).map((it) => it.corner.id),
+      simulated: items.reduce((s, it) => s + (outcomes.get(it.index)?.result.sim && !cached.has(it.index) ? outcomes.get(it.index)!.result.sim!.simulations : 0), 0),
     },
   };
 }
 
-/** A cached simulation is compared again with the current tolerances (compare: may have changed). */
-function refreshComparison(design: Design, corner: Corner, fha: CornerResult['fha'], ideal: IdealOutcome, out: CornerOutcome): CornerOutcome {
+/**
+ * The results file around a study's corners: the envelope, then the measured-points report and the
+ * Monte Carlo statistics, both computed from the corners alone (so `merge` gets the same bytes).
+ */
+export function assembleResults(design: { name: string; file?: string | null; compare: Design['compare'] }, plan: Pick<StudyPlan, 'monteCarlo' | 'measured'>,
+  corners: CornerResult[], facts: Parameters<typeof envelope>[2]): Results {
+  const env = envelope(design, corners, facts);
+  if (plan.measured) env.measured = measuredReport(env, plan.measured.file, design.compare.measured);
+  if (plan.monteCarlo) env.statistics = monteCarloStatistics(corners, plan.monteCarlo.facts);
+  return env;
+}
+
+/** Simulate one plan item, or take it from the cache; undefined when interrupted. */
+async function simulateItem(design: Design, item: PlanItem, engineVersion: string, opts: StudyOptions, onCached: () => void): Promise<CornerOutcome | undefined> {
+  const { corner, fha, ideal, start } = item;
+  const key = opts.cache?.key(design, corner, engineVersion, start!);
+  const hit = key ? await opts.cache!.get(key) : undefined;
+  if (hit) {
+    onCached();
+    return refreshComparison(design, item, hit);
+  }
+  const out = await simulateCorner(opts.engine, design, corner, fha, { signal: opts.signal, timeoutMs: opts.timeoutMs, start: start!, ideal })
+    .catch((e: unknown): CornerOutcome => ({ result: withIdeal(failedCorner(corner, fha, { kind: 'measurement', message: e instanceof Error ? e.message : String(e) }, undefined,
+      evaluateLimits(design, corner.vin, fha, null, ideal.ideal)), ideal) }));
+  if (opts.signal?.aborted && out.result.status === 'failed') return undefined; // interrupted, not a simulator failure
+  if (key && out.result.failure?.kind !== 'timeout') await opts.cache!.set(key, out);
+  return out;
+}
+
+/** A cached simulation is compared again with the current tolerances and limits (they may have changed). */
+function refreshComparison(design: Design, item: PlanItem, out: CornerOutcome): CornerOutcome {
+  const { corner, fha, ideal } = item;
   const r = withIdeal(out.result, ideal);
   if (!r.sim || r.status === 'failed') return { ...out, result: { ...r, fha, checks: evaluateLimits(design, corner.vin, fha, r.sim, ideal.ideal) } };
   const cmp = compareCorner(design, fha, r.sim, corner.fs === null, ideal.ideal);
   const checks = evaluateLimits(design, corner.vin, fha, r.sim, ideal.ideal);
   return { ...out, result: withIdeal({ ...r, ...simulated(corner, fha, { sim: r.sim, comparison: cmp.rows, divergences: cmp.divergences, checks }) }, ideal) };
-}
-
-/** A corner with its FHA prediction, the ideal model and the FHA and ideal sides of its limit checks. */
-function predictedWithChecks(design: Design, c: Corner): CornerResult {
-  const fha = predictCorner(design, c);
-  const ideal = idealCorner(design, c, fha);
-  return withIdeal(predicted(c, fha, evaluateLimits(design, c.vin, fha, null, ideal.ideal)), ideal);
 }
