@@ -25,3 +25,8 @@ export function rowAnchor(cornerId: string): string {
 export function waveAnchor(cornerId: string): string {
   return `w-${idPart(cornerId)}`;
 }
+
+/** Anchor of a bench point's row in the measured-points table (`run --measured`). */
+export function benchAnchor(cornerId: string): string {
+  return `b-${idPart(cornerId)}`;
+}

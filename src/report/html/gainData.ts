@@ -19,6 +19,13 @@ export interface GainPoint {
   sim: OpPoint | null;
   /** The ideal time-domain model's operating point (absent or null without an ideal column). */
   ideal?: OpPoint | null;
+  /**
+   * A bench point (`run --measured`): its fs and the gain of its measured Vout by the same
+   * definition as the models' (n (Vout + VF) / Vin,eff). Needs the design; absent otherwise.
+   */
+  measured?: OpPoint | null;
+  /** The bench point's measured Vout, V, and its gap to the simulation ((measured - sim) / |sim|). */
+  bench?: { vout: number; simGap: number | null };
 }
 
 export interface GainCurve {
@@ -106,6 +113,17 @@ function band(curves: (number | null)[][]): { lo: number[]; hi: number[] } {
   };
 }
 
+/**
+ * A bench point on the gain axes: M = (Vout + drop) / perGain, the inverse of the panel's Vout scale,
+ * so the measured gain uses the same n, VF and Vin,eff as the FHA and simulated gains. Without the
+ * design there is no scale and no marker (a guessed drop would draw a plausible wrong point).
+ */
+function benchPoint(m: NonNullable<CornerResult['measured']>, scale: { perGain: number; drop: number } | null): Pick<GainPoint, 'measured' | 'bench'> {
+  const vout = finite(m.vout);
+  const gain = scale && vout !== null && scale.perGain > 0 ? (vout + scale.drop) / scale.perGain : null;
+  return { measured: opPoint(m.fs, gain), ...(vout !== null ? { bench: { vout, simGap: finite(m.errors?.sim?.vout) } } : {}) };
+}
+
 /** Everything the gain figure draws, from results and (when known) the design. */
 export function gainFigureData(results: Results, design?: Design): GainFigureData {
   const corners = results.corners;
@@ -116,14 +134,18 @@ export function gainFigureData(results: Results, design?: Design): GainFigureDat
   const fr = tc?.fr ?? finite(nominal?.fha.fr);
   const fp = tc?.fp ?? finite(nominal?.fha.fp);
 
+  const voutScale = (vin: number) => (design
+    ? { perGain: (bridgeFactor(design) * vin) / effectiveTurnsRatio(design.tank.integrated, design.tank.lr, design.tank.lm, design.tank.turnsRatio), drop: rectifierDrop(design) }
+    : null);
   const points = (vin: number): GainPoint[] => corners.filter((c) => c.inputs.vin === vin).map((c) => ({
     id: c.id, status: c.status, load: loads.findIndex((l) => l.label === String(c.inputs.loadLabel)),
     fha: opPoint(c.fha.fs, c.fha.gain), sim: c.sim ? opPoint(c.sim.fs, c.sim.gain) : null,
     ideal: c.ideal ? opPoint(c.ideal.fs, c.ideal.gain) : null,
+    ...(c.measured ? benchPoint(c.measured, voutScale(vin)) : {}),
   }));
   const all = vins.flatMap(points);
-  const pfs = all.flatMap((p) => [p.fha?.fs, p.sim?.fs, p.ideal?.fs]).filter((v): v is number => v !== undefined);
-  const pg = all.flatMap((p) => [p.fha?.gain, p.sim?.gain, p.ideal?.gain]).filter((v): v is number => v !== undefined);
+  const pfs = all.flatMap((p) => [p.fha?.fs, p.sim?.fs, p.ideal?.fs, p.measured?.fs]).filter((v): v is number => v !== undefined);
+  const pg = all.flatMap((p) => [p.fha?.gain, p.sim?.gain, p.ideal?.gain, p.measured?.gain]).filter((v): v is number => v !== undefined);
   // From 0.6 fr (or just below fp) to 1.4 fr, widened to every operating point.
   const lo = Math.min(fr ? Math.max(0.6 * fr, 0.95 * (fp ?? 0)) : Infinity, 0.92 * Math.min(...pfs));
   const hi = Math.max(fr ? 1.4 * fr : -Infinity, 1.08 * Math.max(...pfs));
@@ -143,7 +165,7 @@ export function gainFigureData(results: Results, design?: Design): GainFigureDat
         if (tanks.size === 0) return { load: li, gain };
         return { load: li, gain, band: band([gain, ...[...tanks.values()].map((t) => gainCurve(design, l.load, t, grid))]) };
       });
-    return { vin, curves, points: points(vin), target, vout: { perGain: (bridgeFactor(design) * vin) / effectiveTurnsRatio(design.tank.integrated, design.tank.lr, design.tank.lm, design.tank.turnsRatio), drop: rectifierDrop(design) } };
+    return { vin, curves, points: points(vin), target, vout: voutScale(vin) };
   });
 
   const curveMin = Math.min(...panels.flatMap((p) => p.curves.flatMap((c) => c.gain.filter((g): g is number => g !== null))));

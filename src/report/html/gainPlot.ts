@@ -1,7 +1,7 @@
 /** The gain-against-switching-frequency section: one SVG panel per input voltage. Pure. */
 import type { Design } from '../../design/types.js';
 import type { Results } from '../../results/types.js';
-import { esc, rowAnchor } from './escape.js';
+import { benchAnchor, esc, rowAnchor } from './escape.js';
 import { num, pct } from './format.js';
 import { type GainFigureData, type GainPanel, type GainPoint, gainFigureData } from './gainData.js';
 import { seriesColour, seriesDash } from './palette.js';
@@ -24,7 +24,18 @@ function pointLayers(points: GainPoint[], sx: Scale, sy: Scale): string {
   const sims = points.filter((p) => p.sim).map((p) => link(p, `<path class="pt-sim" d="M${px(sx(p.sim!.fs))} ${px(sy(p.sim!.gain) - 4.5)}l4.5 4.5-4.5 4.5-4.5-4.5z" fill="${seriesColour(Math.max(p.load, 0))}"/>`));
   const ideals = points.filter((p) => p.ideal).map((p) => link(p, `<path class="pt-ideal" d="M${px(sx(p.ideal!.fs) - 4)} ${px(sy(p.ideal!.gain) - 4)}l8 8m0-8l-8 8" stroke="${seriesColour(Math.max(p.load, 0))}" stroke-width="1.5"/>`));
   const fhas = points.filter((p) => p.fha).map((p) => link(p, `<circle class="pt-fha" cx="${px(sx(p.fha!.fs))}" cy="${px(sy(p.fha!.gain))}" r="4" stroke="${seriesColour(Math.max(p.load, 0))}"/>`));
-  return `${gaps ? `<path class="gap" d="${gaps}"/>` : ''}${sims.join('')}${ideals.join('')}${fhas.join('')}`;
+  return `${gaps ? `<path class="gap" d="${gaps}"/>` : ''}${sims.join('')}${ideals.join('')}${fhas.join('')}${benchMarkers(points, sx, sy)}`;
+}
+
+/** Bench points (`run --measured`) as triangles on top, linked to their row in the measured-points table. */
+function benchMarkers(points: GainPoint[], sx: Scale, sy: Scale): string {
+  return points.filter((p) => p.measured).map((p) => `<a href="#${benchAnchor(p.id)}" class="op"><title>${esc(tooltip(p))}</title>`
+    + `<path class="pt-meas" d="${triangle(sx(p.measured!.fs), sy(p.measured!.gain))}" fill="${seriesColour(Math.max(p.load, 0))}"/></a>`).join('');
+}
+
+/** An upward triangle centred on (x, y), 10 px wide: the bench marker's shape. */
+function triangle(x: number, y: number): string {
+  return `M${px(x)} ${px(y - 5.5)}l5 9h-10z`;
 }
 
 function tooltip(p: GainPoint): string {
@@ -32,7 +43,8 @@ function tooltip(p: GainPoint): string {
   const sim = p.sim ? `sim ${kHz(p.sim.fs)} kHz, M ${num(p.sim.gain)}` : 'sim: none';
   const gap = p.fha && p.sim ? ` (fs ${pct((p.sim.fs - p.fha.fs) / p.fha.fs)}, M ${pct((p.sim.gain - p.fha.gain) / p.fha.gain)})` : '';
   const ideal = p.ideal ? `; ideal model ${kHz(p.ideal.fs)} kHz, M ${num(p.ideal.gain)}` : '';
-  return `${p.id}: ${fha}; ${sim}${gap}${ideal}`;
+  const bench = p.bench ? `; bench Vout ${num(p.bench.vout)} V${p.measured ? ` (M ${num(p.measured.gain)})` : ''}${p.bench.simGap !== null ? `, ${pct(p.bench.simGap)} against sim` : ''}` : '';
+  return `${p.id}: ${fha}; ${sim}${gap}${ideal}${bench}`;
 }
 
 /** Capacitive region: left of fp, and below the zero-phase locus down to fr (docs/method.md#zero-phase). */
@@ -101,7 +113,7 @@ function panelSvg(d: GainFigureData, p: GainPanel, win?: { min?: number; max?: n
     ...(y2 ? { y2: { ticks: y2, label: 'Vout, V (at this Vin)' } } : {}),
   });
   const title = `Vin ${num(p.vin)} V`;
-  return `<svg class="plot gain" data-plot="gain" data-series="${p.curves.length}" data-points="${p.points.length}" viewBox="0 0 ${W} ${H}" role="img" aria-label="${esc(`Gain against switching frequency at ${title}`)}">`
+  return `<svg class="plot gain" data-plot="gain" data-series="${p.curves.length}" data-points="${p.points.length}" data-measured="${p.points.filter((x) => x.measured).length}" viewBox="0 0 ${W} ${H}" role="img" aria-label="${esc(`Gain against switching frequency at ${title}`)}">`
     + `<text class="title" x="${M.l}" y="16">${esc(title)}</text>${fr}`
     + `<svg x="${M.l}" y="${M.t}" width="${w}" height="${h}">${inner.join('')}</svg></svg>`;
 }
@@ -123,6 +135,7 @@ function legend(d: GainFigureData): string {
     pts.some((p) => p.fha) ? '<svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><circle cx="6" cy="6" r="4" class="pt-fha" stroke="#333"/></svg>FHA operating point' : '',
     pts.some((p) => p.sim) ? '<svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><path d="M6 1.5l4.5 4.5-4.5 4.5-4.5-4.5z" fill="#333"/></svg>simulated operating point (thin line: the gap to FHA)' : '',
     pts.some((p) => p.ideal) ? '<svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><path d="M2 2l8 8m0-8l-8 8" stroke="#333" stroke-width="1.5"/></svg>ideal time-domain model' : '',
+    pts.some((p) => p.measured) ? `<svg class="sw" viewBox="0 0 12 12" aria-hidden="true"><path class="pt-meas" d="${triangle(6, 6.5)}" fill="#333"/></svg>measured on the bench (gain of the measured Vout)` : '',
     d.panels.some((p) => p.target !== null) ? `${line('stroke="#777" stroke-dasharray="1 3"')}gain the Vout set point needs` : '',
     d.hasDesign ? `${line('class="boundary"')}zero-phase boundary` : '',
   ];
@@ -136,7 +149,9 @@ export function renderGainSection(results: Results, design?: Design): string {
   const note = d.hasDesign
     ? '<p class="caption">Tank gain M = n (Vout + V<sub>F</sub>) / V<sub>in,eff</sub> against switching frequency, one panel per input voltage. Curves: FHA gain for each load with the nominal tank, Q from R<sub>ac</sub> at the output set point (rectifier drop included); shaded bands: spread over the tank tolerance sets. Grey area: capacitive tank input (below the zero-phase boundary, or below fp), where ZVS is lost. Each point links to its table row; hover for values.</p>'
     : '<p class="caption notice">The design file was not available, so this figure shows only the FHA and simulated operating points (and fr from the results): the FHA gain curves and the zero-phase boundary need the design. Re-run the report with the design file to draw them.</p>';
+  const benchNote = !d.hasDesign && results.corners.some((c) => c.measured)
+    ? '<p class="caption notice">The measured points are not drawn: their gain needs the turns ratio and rectifier drop from the design file.</p>' : '';
   const win = design?.limits?.frequency;
   const winNote = win ? `<p class="legend"><span><svg class="sw" viewBox="0 0 28 10" aria-hidden="true"><rect x="1" y="1" width="26" height="8" class="fwindow"/></svg>the controller's frequency window (limits.frequency${win.min !== undefined ? `, min ${esc(kHz(win.min))} kHz` : ''}${win.max !== undefined ? `, max ${esc(kHz(win.max))} kHz` : ''})</span></p>` : '';
-  return `${note}<div class="panels">${d.panels.map((p) => panelSvg(d, p, win)).join('')}</div>${legend(d)}${winNote}`;
+  return `${note}${benchNote}<div class="panels">${d.panels.map((p) => panelSvg(d, p, win)).join('')}</div>${legend(d)}${winNote}`;
 }

@@ -8,6 +8,7 @@ import { renderCornerMap } from './cornerMap.js';
 import { renderLimits, renderMissed } from './limits.js';
 import { esc } from './escape.js';
 import { renderGainSection } from './gainPlot.js';
+import { renderMeasuredSection } from './measured.js';
 import { renderMethod } from './method.js';
 import { SCRIPT } from './script.js';
 import { CSS } from './style.js';
@@ -29,6 +30,7 @@ export const SECTIONS = [
   ['summary', 'Summary'],
   ['statistics', 'Monte Carlo: yield and sensitivity'],
   ['gain', 'Gain against switching frequency'],
+  ['measured', 'Bench measurements against the models'],
   ['map', 'Corner map'],
   ['limits', 'Limits and stresses'],
   ['table', 'FHA and simulation side by side'],
@@ -49,14 +51,15 @@ export function renderHtmlReport(input: HtmlReportInput): string {
     summary: `${renderMissed(results)}${renderSummary(results)}`,
     statistics: renderStatisticsSection(results),
     gain: renderGainSection(results, design),
+    measured: renderMeasuredSection(results),
     map: renderCornerMap(results, design),
     limits: renderLimits(results, design),
     table: renderTable(results, waveIds),
     waves: renderWaveforms(results, waveforms),
     method: renderMethod(),
   };
-  // the Monte Carlo section only for Monte Carlo runs
-  const shown = SECTIONS.filter(([id]) => id !== 'statistics' || results.statistics);
+  // the Monte Carlo section only for Monte Carlo runs, the bench section only with measured points
+  const shown = SECTIONS.filter(([id]) => (id !== 'statistics' || results.statistics) && (id !== 'measured' || bodies.measured));
   const nav = shown.map(([id, title]) => `<a href="#${id}">${title}</a>`).join('');
   const sections = shown.map(([id, title]) => `<section id="${id}"><h2>${title}</h2>\n${bodies[id]}\n</section>`).join('\n');
   const name = esc(results.design?.name ?? '');

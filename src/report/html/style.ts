@@ -62,7 +62,8 @@ svg.plot .pt-ideal{stroke:#E69F00;stroke-width:2}svg.plot.stress .pt-sim{fill:#0
 svg.plot .pt-fha,.legend .pt-fha{fill:#fff;stroke-width:1.8}
 svg.plot .pt-sim{stroke:#222;stroke-width:.8}
 svg.plot .pt-ideal{fill:none}
-svg.plot a.op:hover .pt-fha,svg.plot a.op:hover .pt-sim{stroke-width:3}
+svg.plot .pt-meas,.legend .sw path.pt-meas{stroke:#111;stroke-width:1.1;stroke-linejoin:round}
+svg.plot a.op:hover .pt-fha,svg.plot a.op:hover .pt-sim,svg.plot a.op:hover .pt-meas{stroke-width:3}
 svg.plot .edge{stroke:#bbb;stroke-width:1;stroke-dasharray:2 3}
 svg.plot .zero{stroke:#999;stroke-width:.8}
 svg.plot .gate{fill:#222}
@@ -107,6 +108,7 @@ table.cmp td.notes.open button.more::before{content:"▾ "}
 table.cmp td.notes ul{display:none;margin:4px 0;padding-left:16px;font-size:11.5px;width:480px}
 table.cmp td.notes.open ul{display:block}
 table.cmp td.notes pre{white-space:pre-wrap;font-size:10.5px}
+table.bench td.metric,table.bench td.notes{text-align:left}table.bench td.meas{font-weight:600}table.bench tbody th small{font-weight:400;color:var(--muted)}
 table.cmp tr:target th,table.cmp tr:target td{outline:2px solid #0072B2;outline-offset:-2px}
 a.wl{text-decoration:none;font-weight:400}
 .waves{display:grid;grid-template-columns:repeat(auto-fill,minmax(560px,1fr));gap:16px 24px}
