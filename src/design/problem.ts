@@ -13,7 +13,8 @@ export type ProblemCode =
   | 'value' // value does not parse (bad number, wrong unit, unknown choice)
   | 'range' // outside the physically meaningful range (<= 0, tolerance >= 50 %, ...)
   | 'implausible' // physically possible but almost surely a typo (unit prefix slip) or inconsistent
-  | 'model'; // device model file rejected by the line filter
+  | 'model' // device model file rejected by the line filter
+  | 'json'; // a results or waveforms file that is not valid JSON
 
 /** One problem in a design file, as a structured record; `formatProblem` renders it for people. */
 export interface Problem {
