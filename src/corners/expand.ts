@@ -3,6 +3,7 @@ import type { Design, ExplicitCorner, LoadSpec } from '../design/types.js';
 import type { Corner, TolSide } from './types.js';
 import { sampleCorners } from './random.js';
 import { idNumber, num } from '../units/index.js';
+import { matchesPattern } from './match.js';
 
 /** Load resistance in ohm: %, W and A are converted at output.voltage; ohm is used as is. */
 export function loadResistance(spec: LoadSpec, design: Design): number {
@@ -117,13 +118,11 @@ export function expandCorners(design: Design): Corner[] {
   return out;
 }
 
-/** Keep corners whose id matches a glob-like pattern ('*' any run, '?' one character). */
+/**
+ * Keep corners whose id matches `pattern` (see `matchesPattern`: `*` and `?` wildcards match the
+ * whole id; a pattern without them matches a part of it). No pattern keeps every corner.
+ */
 export function filterCorners(corners: Corner[], pattern: string | undefined): Corner[] {
   if (!pattern) return corners;
-  const re = new RegExp(`^${pattern.split('*').map((p) => p.split('?').map(escapeRe).join('.')).join('.*')}$`, 'i');
-  return corners.filter((c) => re.test(c.id) || c.id.includes(pattern));
-}
-
-function escapeRe(s: string): string {
-  return s.replace(/[.+^${}()|[\]\\]/g, '\\$&');
+  return corners.filter((c) => matchesPattern(pattern, c.id));
 }
