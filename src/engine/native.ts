@@ -37,20 +37,6 @@ function childEnv(dir: string): Record<string, string> {
   return env;
 }
 
-/**
- * Reads the version from the first `ngspice-…` token of `ngspice -v` (e.g. 'ngspice-39').
- * @throws EngineUnavailableError when the binary cannot be run or does not identify as ngspice.
- */
-export async function probeNgspice(path = 'ngspice'): Promise<string> {
-  const r = await execa(path, ['-v'], { reject: false, stdin: 'ignore', timeout: 15_000, extendEnv: false, env: childEnv(tmpdir()) });
-  if (r.code || r.exitCode === undefined) {
-    throw new EngineUnavailableError(`cannot run ngspice (${path}): ${r.code ?? r.shortMessage ?? 'failed'}`, 'ngspice');
-  }
-  const m = /ngspice-[0-9][\w.+-]*/.exec(`${r.stdout}\n${r.stderr}`);
-  if (!m) throw new EngineUnavailableError(`${path} -v printed no ngspice version`, 'ngspice');
-  return m[0];
-}
-
 /** POSIX only: a job leads its own process group, so the whole group can be signalled. */
 const GROUPS = process.platform !== 'win32';
 /**
@@ -79,6 +65,44 @@ function track(pid: number, dir: string | undefined): void {
       if (d) rmSync(d, { recursive: true, force: true });
     }
   });
+}
+
+/** Time limit of the `ngspice -v` probe, ms. */
+export const PROBE_TIMEOUT_MS = 15_000;
+
+/**
+ * Reads the version from the first `ngspice-…` token of `ngspice -v` (e.g. 'ngspice-39'). The probe
+ * leads its own process group, which is killed when it exits or times out: a wrapper script that hangs
+ * (or leaves a child holding its output open) cannot keep tankcheck waiting past the limit.
+ * @param timeoutMs limit for the probe. @default PROBE_TIMEOUT_MS
+ * @throws EngineUnavailableError when the binary cannot be run or does not identify as ngspice.
+ */
+export async function probeNgspice(path = 'ngspice', timeoutMs = PROBE_TIMEOUT_MS): Promise<string> {
+  const child = execa(path, ['-v'], { reject: false, stdin: 'ignore', timeout: timeoutMs, forceKillAfterDelay: 500, extendEnv: false, env: childEnv(tmpdir()), detached: GROUPS });
+  const pid = child.pid;
+  let timer: NodeJS.Timeout | undefined;
+  if (GROUPS && pid !== undefined) {
+    track(pid, undefined);
+    child.on('exit', () => killGroup(pid));
+    timer = setTimeout(() => killGroup(pid), timeoutMs);
+  }
+  let r;
+  try {
+    r = await child;
+  } finally {
+    clearTimeout(timer);
+    if (GROUPS && pid !== undefined) {
+      killGroup(pid);
+      running.delete(pid);
+    }
+  }
+  if (r.timedOut) throw new EngineUnavailableError(`${path} -v did not finish within ${timeoutMs} ms`, 'ngspice');
+  if (r.code || r.exitCode === undefined) {
+    throw new EngineUnavailableError(`cannot run ngspice (${path}): ${r.code ?? r.shortMessage ?? 'failed'}`, 'ngspice');
+  }
+  const m = /ngspice-[0-9][\w.+-]*/.exec(`${r.stdout}\n${r.stderr}`);
+  if (!m) throw new EngineUnavailableError(`${path} -v printed no ngspice version`, 'ngspice');
+  return m[0];
 }
 
 function failedEarly(job: SimJob, kind: 'input' | 'aborted', message: string, t0: number): SimResult {

@@ -40,6 +40,8 @@ interface Pending {
 interface Slot {
   worker: Worker;
   ready: Promise<string>;
+  /** The start-up time limit; cleared once started or stopped, so that it never holds the process open. */
+  startTimer?: NodeJS.Timeout;
   runs: number;
   current?: Pending;
   dead: boolean;
@@ -60,6 +62,7 @@ export function createWasmEngine(options: WasmEngineOptions = {}): WasmEngine {
 
   function kill(slot: Slot): void {
     slot.dead = true;
+    clearTimeout(slot.startTimer);
     const i = slots.indexOf(slot);
     if (i >= 0) slots.splice(i, 1);
     void slot.worker.terminate();
@@ -83,16 +86,19 @@ export function createWasmEngine(options: WasmEngineOptions = {}): WasmEngine {
     const worker = new Worker(WORKER_URL, { stdout: true, stderr: true });
     counts.workersStarted += 1;
     let fail: (e: Error) => void = () => {};
-    const slot: Slot = { worker, runs: 0, dead: false, ready: new Promise<string>((resolve, reject) => {
+    const slot = { worker, runs: 0, dead: false } as Slot;
+    slot.ready = new Promise<string>((resolve, reject) => {
       fail = reject;
-      const timer = setTimeout(() => reject(new Error(`wasm engine did not start within ${startTimeoutMs} ms`)), startTimeoutMs);
+      // a worker stopped while starting (Ctrl-C in the first seconds) clears this in kill(): a pending
+      // 60 s timer would otherwise keep the process alive long after the results were written
+      slot.startTimer = setTimeout(() => reject(new Error(`wasm engine did not start within ${startTimeoutMs} ms`)), startTimeoutMs);
       worker.on('message', (m: { type: string; version?: string; message?: string }) => {
         if (m.type === 'ready') resolve(m.version ?? 'ngspice-unknown');
         else if (m.type === 'startError') reject(new Error(m.message));
         else return;
-        clearTimeout(timer);
+        clearTimeout(slot.startTimer);
       });
-    }) };
+    });
     slot.ready.catch(() => kill(slot));
     worker.on('message', (m: DoneMessage | FatalMessage) => {
       const p = slot.current;
