@@ -27,7 +27,8 @@ export interface StudyProgress {
 /** Corner-level result cache (content-addressed by the caller's key). */
 export interface CornerCache {
   key(design: Design, corner: Corner, engineVersion: string, start: StartPoint): string;
-  get(key: string): Promise<CornerOutcome | undefined>;
+  /** The stored outcome of `cornerId` under `key`; undefined is a miss (also for an entry that fails its checks). */
+  get(key: string, cornerId: string): Promise<CornerOutcome | undefined>;
   set(key: string, value: CornerOutcome): Promise<void>;
 }
 
@@ -137,7 +138,7 @@ export function assembleResults(design: { name: string; file?: string | null; co
 async function simulateItem(design: Design, item: PlanItem, engineVersion: string, opts: StudyOptions, onCached: () => void): Promise<CornerOutcome | undefined> {
   const { corner, fha, ideal, start } = item;
   const key = opts.cache?.key(design, corner, engineVersion, start!);
-  const hit = key ? await opts.cache!.get(key) : undefined;
+  const hit = key ? await opts.cache!.get(key, corner.id) : undefined;
   if (hit) {
     onCached();
     return refreshComparison(design, item, hit);
