@@ -1,19 +1,18 @@
-import { Command, CommanderError, InvalidArgumentError } from 'commander';
-import { readFile, writeFile, access } from 'node:fs/promises';
-import { fileURLToPath } from 'node:url';
+import { Command, CommanderError, InvalidArgumentError, Option } from 'commander';
 import { loadDesign, formatProblem, designJsonSchema, type Design } from '../design/index.js';
 import { predictStudy } from '../run/study.js';
 import { renderFhaTable } from '../report/table.js';
 import { renderResultsJson } from '../report/json.js';
 import { renderResultsCsv } from '../report/csv.js';
-import { writeFilesAtomic } from '../run/files.js';
+import { fsReason, writeFilesAtomic } from '../run/files.js';
 import { writeDecks } from './decks.js';
 import { runCommand, type RunFlags } from './run.js';
 import { reportCommand } from './report.js';
 import { EXIT, renderExitTable, UsageError } from './exit.js';
+import { requireMatches } from './common.js';
+import { checkOutputFile, checkOutputFolder } from './outputs.js';
+import { helpExamples, initCommand } from './init.js';
 import { TOOL_VERSION } from '../version.js';
-
-const DEMO = fileURLToPath(new URL('../../examples/demo.yaml', import.meta.url));
 
 /** Load and validate a design file; every problem goes to stderr and becomes exit code 2. */
 export async function loadOrReport(file: string): Promise<Design> {
@@ -43,40 +42,48 @@ function positiveInt(v: string): number {
 /** Longest --only pattern accepted: corner ids are far shorter. */
 export const MAX_ONLY_LENGTH = 200;
 
-/**
- * Checks a --only pattern. Runs of '*' collapse to one: each '*' becomes '.*' in the matcher, and a
- * few thousand of them in a row make the regular expression backtrack for minutes.
- */
+/** Checks a --only pattern's length (the matcher itself takes any pattern in bounded time). */
 function onlyPattern(v: string): string {
   if (v.length > MAX_ONLY_LENGTH) throw new InvalidArgumentError(`at most ${MAX_ONLY_LENGTH} characters`);
-  return v.replace(/\*{2,}/g, '*');
+  return v;
 }
+
+const quiet = '-q, --quiet';
+const quietText = 'print only warnings and errors (for CI); the exit code still tells the outcome';
+const onlyText = 'corners whose id matches: * and ? wildcards match the whole id, a plain pattern any part of it';
 
 function program(): Command {
   const p = new Command('tankcheck')
     .description('LLC resonant converter corners: FHA predictions checked against ngspice simulation')
     .version(TOOL_VERSION, '-V, --version')
     .exitOverride()
-    .configureOutput({ writeErr: (s) => process.stderr.write(s) });
+    .configureOutput({ writeErr: (s) => process.stderr.write(s) })
+    .addHelpText('after', `\n${helpExamples()}\n\nExit codes:\n${renderExitTable()}\n`);
 
   p.command('init').argument('[file]', 'where to write the demo design', 'demo.yaml')
+    .option('-o, --out <file>', 'where to write the demo design (instead of [file])')
     .option('--force', 'overwrite an existing file')
+    .option(quiet, quietText)
     .description('write the demo design file (an invented 24 V / 240 W half-bridge supply)')
-    .action(async (file: string, o: { force?: boolean }) => {
-      if (!o.force && (await access(file).then(() => true, () => false))) throw new UsageError(`${file} exists; use --force to overwrite`);
-      await writeFile(file, await readFile(DEMO, 'utf8'));
-      process.stdout.write(`wrote ${file}\n`);
+    .addHelpText('after', '\nExample:\n  tankcheck init my-design.yaml')
+    .action(async (arg: string, o: { out?: string; force?: boolean; quiet?: boolean }) => {
+      await initCommand(o.out ?? arg, o);
     });
 
   p.command('fha').argument('<design>', 'design file (YAML)')
-    .option('--json <file>', 'write results JSON (FHA only)')
+    .option('-o, --json <file>', 'write results JSON (FHA only)')
     .option('--csv <file>', 'write results CSV (FHA only)')
-    .option('--only <pattern>', 'corners whose id matches (* and ? wildcards)', onlyPattern)
+    .option('--only <pattern>', onlyText, onlyPattern)
+    .option(quiet, quietText)
     .description('FHA prediction for every corner')
-    .action(async (file: string, o: { json?: string; csv?: string; only?: string }) => {
+    .addHelpText('after', '\nExample:\n  tankcheck fha demo.yaml --only \'v390_*\' -o fha.json')
+    .action(async (file: string, o: { json?: string; csv?: string; only?: string; quiet?: boolean }) => {
       const design = await loadOrReport(file);
+      requireMatches(design, o.only);
+      if (o.json) await checkOutputFile(o.json, '--json');
+      if (o.csv) await checkOutputFile(o.csv, '--csv');
       const results = predictStudy({ ...design, file }, o.only);
-      process.stdout.write(renderFhaTable(results));
+      if (!o.quiet) process.stdout.write(renderFhaTable(results));
       const files = [];
       if (o.json) files.push({ path: o.json, text: renderResultsJson(results) });
       if (o.csv) files.push({ path: o.csv, text: renderResultsCsv(results) });
@@ -85,20 +92,24 @@ function program(): Command {
 
   p.command('decks').argument('<design>', 'design file (YAML)')
     .requiredOption('-o, --out <dir>', 'folder for the decks and index.csv')
-    .option('--only <pattern>', 'corners whose id matches', onlyPattern)
+    .option('--only <pattern>', onlyText, onlyPattern)
+    .option(quiet, quietText)
     .description('write one SPICE deck per corner (runs by hand with ngspice -b) and an index')
-    .action(async (file: string, o: { out: string; only?: string }) => {
+    .addHelpText('after', '\nExample:\n  tankcheck decks demo.yaml -o decks && cd decks && ngspice -b v390_100pct_reg_nom.cir')
+    .action(async (file: string, o: { out: string; only?: string; quiet?: boolean }) => {
       const design = await loadOrReport(file);
+      requireMatches(design, o.only);
+      await checkOutputFolder(o.out, '--out');
       const n = await writeDecks(design, o.out, o.only);
-      process.stdout.write(`wrote ${n} decks and index.csv to ${o.out}\n`);
+      if (!o.quiet) process.stdout.write(`wrote ${n} decks and index.csv to ${o.out}\n`);
     });
 
   p.command('run').argument('<design>', 'design file (YAML)')
-    .option('--engine <name>', 'wasm (embedded, default) or ngspice (system binary)', 'wasm')
+    .addOption(new Option('--engine <name>', 'wasm (embedded) or ngspice (system binary)').choices(['wasm', 'ngspice']).default('wasm'))
     .option('--ngspice-path <path>', 'ngspice binary for --engine ngspice')
     .option('--jobs <n>', 'corners simulated at once (default: from cores and free memory)', positiveInt)
-    .option('--out <dir>', 'folder for results.json, results.csv, junit.xml, waveforms.json', 'tankcheck-out')
-    .option('--only <pattern>', 'corners whose id matches', onlyPattern)
+    .option('-o, --out <dir>', 'folder for results.json, results.csv, junit.xml, waveforms.json, run-log.json', 'tankcheck-out')
+    .option('--only <pattern>', onlyText, onlyPattern)
     .option('--baseline <results.json>', 'compare with an earlier run and flag regressions')
     .option('--baseline-tolerance <fraction>', 'relative change of a simulated metric that counts as moved', '0.01')
     .option('--html <file>', 'also write the HTML report')
@@ -106,10 +117,11 @@ function program(): Command {
     .option('--cache-dir <dir>', 'corner cache folder', '.tankcheck-cache')
     .option('--keep-decks', 'keep the simulator work folders (system ngspice)')
     .option('--timeout <seconds>', 'wall-clock limit per simulator run', positiveInt)
-    .option('--fail-on <what>', '"divergence": exit 1 on any divergence beyond tolerance (default: only on unexplained ones)')
+    .addOption(new Option('--fail-on <what>', '"divergence": exit 1 on any divergence beyond tolerance (default: only on unexplained ones)').choices(['divergence']))
     .option('--measured <file>', 'CSV of points measured on a prototype (vin, load, fs, vout, ...): each is simulated at its fs and compared')
+    .option(quiet, quietText)
     .description('simulate every corner and compare with FHA')
-    .addHelpText('after', `\nExit codes:\n${renderExitTable()}\n`)
+    .addHelpText('after', `\n${helpExamples()}\n\nExit codes:\n${renderExitTable()}\n`)
     .action(async (file: string, o: RunFlags) => {
       const design = await loadOrReport(file);
       throw new ExitSignal(await runCommand({ ...design, file }, o));
@@ -119,12 +131,14 @@ function program(): Command {
     .requiredOption('-o, --out <file>', 'HTML file to write')
     .option('--design <file>', 'design file for the FHA curves (default: the one named in the results)')
     .option('--waveforms <file>', 'waveforms.json (default: beside the results file)')
+    .option(quiet, quietText)
     .description('write the self-contained HTML report from saved results')
-    .action(async (file: string, o: { out: string; design?: string; waveforms?: string }) => {
+    .addHelpText('after', '\nExample:\n  tankcheck report tankcheck-out/results.json -o report.html')
+    .action(async (file: string, o: { out: string; design?: string; waveforms?: string; quiet?: boolean }) => {
       await reportCommand(file, o, loadOrReport);
     });
 
-  p.command('schema').description('print the JSON Schema of the design file format')
+  p.command('schema').description('print the JSON Schema of the design file format (also tankcheck/schema/design.schema.json)')
     .action(() => {
       process.stdout.write(`${JSON.stringify(designJsonSchema, null, 2)}\n`);
     });
@@ -141,6 +155,13 @@ export async function main(argv: string[]): Promise<number> {
     if (e instanceof CommanderError) return e.exitCode === 0 ? EXIT.ok : EXIT.invalid;
     if (e instanceof UsageError) {
       process.stderr.write(`tankcheck: ${e.message}\n`);
+      return EXIT.invalid;
+    }
+    // a file-system error that slipped past the checks up front (a disk filling up, a folder removed
+    // meanwhile) is the environment's problem, not a bug
+    const fs = e as NodeJS.ErrnoException;
+    if (fs instanceof Error && typeof fs.code === 'string' && typeof fs.syscall === 'string') {
+      process.stderr.write(`tankcheck: ${fs.path ?? fs.syscall}: ${fsReason(fs)}\n`);
       return EXIT.invalid;
     }
     if (e instanceof Error && e.name === 'EngineUnavailableError') {

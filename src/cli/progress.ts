@@ -2,11 +2,13 @@ import type { StudyProgress } from '../run/study.js';
 
 /**
  * Progress on stderr: a redrawn bar with corners done, failed and an ETA on a TTY; one plain line
- * per finished corner otherwise (CI logs).
+ * per finished corner otherwise (CI logs); nothing with `quiet`.
  */
-export function createProgress(stream: NodeJS.WriteStream, total: number, now: () => number = Date.now) {
+export function createProgress(stream: NodeJS.WriteStream, total: number, options: { quiet?: boolean; now?: () => number } = {}) {
+  const now = options.now ?? Date.now;
   const t0 = now();
   const tty = Boolean(stream.isTTY);
+  if (options.quiet) return { update(_p: StudyProgress) {}, start(_what?: string) {}, end() {} };
   return {
     update(p: StudyProgress) {
       // screening is fast and may count thousands of corners: a line per tenth in a log

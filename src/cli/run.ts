@@ -1,10 +1,7 @@
-import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { Design } from '../design/types.js';
-import type { Results } from '../results/types.js';
-import { createEngine, defaultJobs, maxJobs, EngineUnavailableError } from '../engine/index.js';
+import { createEngine, defaultJobs, maxJobs, EngineUnavailableError, type EngineName } from '../engine/index.js';
 import { runStudy } from '../run/study.js';
-import { expandCorners, filterCorners } from '../corners/expand.js';
 import { createFileCache } from '../run/cache.js';
 import { writeFilesAtomic } from '../run/files.js';
 import { renderResultsJson, renderWaveformsJson } from '../report/json.js';
@@ -19,11 +16,16 @@ import { createProgress } from './progress.js';
 import { loadMeasured } from './measured.js';
 import { renderMeasuredTable } from '../report/measured.js';
 import { measuredCorners } from '../measured/index.js';
-import { EXIT, exitCodeFor, UsageError } from './exit.js';
+import { expandCorners, filterCorners } from '../corners/expand.js';
+import { EXIT, exitCodeFor, signalExit, UsageError } from './exit.js';
 import { runFailures, type FailOn } from '../results/gate.js';
+import { loadResultsFile } from '../run/resultsFile.js';
+import { orRefuse } from './report.js';
+import { cacheProblem, checkOutputFile, checkOutputFolder } from './outputs.js';
+import { requireMatches, useColor } from './common.js';
 
 export interface RunFlags {
-  engine: string;
+  engine: EngineName;
   ngspicePath?: string;
   jobs?: number;
   out: string;
@@ -38,30 +40,33 @@ export interface RunFlags {
   /** 'divergence': also fail on any divergence beyond tolerance (default: only unexplained ones). */
   failOn?: string;
   measured?: string;
-}
-
-async function readBaseline(file: string): Promise<Results> {
-  let data: unknown;
-  try {
-    data = JSON.parse(await readFile(file, 'utf8'));
-  } catch (e) {
-    throw new UsageError(`--baseline ${file}: cannot read a results file (${e instanceof Error ? e.message : e})`);
-  }
-  if ((data as Results)?.schema !== 'tankcheck/results@1' || !Array.isArray((data as Results).corners)) {
-    throw new UsageError(`--baseline ${file}: not a tankcheck results file (schema tankcheck/results@1 expected)`);
-  }
-  return data as Results;
+  quiet?: boolean;
 }
 
 /** `tankcheck run`: returns the exit code; writes results even when interrupted. */
 export async function runCommand(design: Design, o: RunFlags): Promise<number> {
-  if (o.engine !== 'wasm' && o.engine !== 'ngspice') throw new UsageError(`--engine must be wasm or ngspice, got ${JSON.stringify(o.engine)}`);
   if (o.failOn !== undefined && o.failOn !== 'divergence') throw new UsageError(`--fail-on takes "divergence", got ${JSON.stringify(o.failOn)}`);
   const failOn: FailOn = o.failOn === 'divergence' ? 'divergence' : 'default';
   const baselineTol = Number(o.baselineTolerance);
   if (!(baselineTol >= 0 && baselineTol < 1)) throw new UsageError('--baseline-tolerance must be a fraction in [0, 1)');
-  const baseline = o.baseline ? await readBaseline(o.baseline) : undefined;
   const measured = o.measured ? await loadMeasured(o.measured) : undefined;
+  const extra = measuredCorners(design, measured?.points ?? []);
+  // the design's corners and the measured points, as the study will run them
+  const corners = [...requireMatches(design, o.only, extra), ...filterCorners(extra, o.only)];
+  // everything that can be refused is refused before the first simulation
+  const baseline = o.baseline ? orRefuse(await loadResultsFile(o.baseline), `--baseline ${o.baseline}`) : undefined;
+  if (baseline && baseline.design.name !== design.name) {
+    process.stderr.write(`note: baseline is from design "${baseline.design.name}", this run is design "${design.name}"\n`);
+  }
+  await checkOutputFolder(o.out, '--out');
+  if (o.html) await checkOutputFile(o.html, '--html');
+  let cache = o.cache;
+  if (cache) {
+    const p = await cacheProblem(o.cacheDir);
+    if (p?.fatal) throw new UsageError(p.reason);
+    if (p) process.stderr.write(`warning: ${p.reason}\n`);
+    cache = !p;
+  }
   // --jobs is a wish: each wasm worker needs ~0.5 GB, so never start more than free memory holds
   const limit = maxJobs(o.engine);
   if (o.jobs !== undefined && o.jobs > limit) {
@@ -70,26 +75,36 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
   const jobs = Math.min(o.jobs ?? defaultJobs(o.engine), limit);
   const engine = createEngine(o.engine, { path: o.ngspicePath, workers: jobs, keepDir: o.keepDecks });
   const controller = new AbortController();
-  let signals = 0;
+  let stoppedBy: NodeJS.Signals | undefined;
   // First SIGINT/SIGTERM/SIGHUP: stop starting corners, cancel the running ones (engines honour the
-  // signal), keep the finished ones and write the results marked incomplete. A second one stops at
-  // once; the native engine's exit hook kills any simulator process still running. SIGHUP (terminal
-  // closed) counts because system ngspice runs in its own process group, out of the terminal's reach.
+  // signal, a starting engine included), keep the finished ones and write the results marked
+  // incomplete. A second one stops at once; the native engine's exit hook kills any simulator process
+  // still running. SIGHUP (terminal closed) counts because system ngspice runs in its own process
+  // group, out of the terminal's reach. The exit code is 128 + the first signal's number.
   const onSignal = (sig: NodeJS.Signals) => {
-    if (++signals === 1) {
+    if (!stoppedBy) {
+      stoppedBy = sig;
       process.stderr.write(`\ntankcheck: ${sig}: stopping; finished corners are kept and written (send it again to stop at once)\n`);
       controller.abort(new Error(`interrupted by ${sig}`));
       return;
     }
     process.stderr.write(`tankcheck: ${sig} again: stopping at once, nothing more is written\n`);
-    process.exit(EXIT.interrupted);
+    process.exit(signalExit(stoppedBy));
   };
   const SIGNALS = ['SIGINT', 'SIGTERM', 'SIGHUP'] as const;
   for (const sig of SIGNALS) process.on(sig, onSignal);
   try {
+    // the embedded engine takes seconds to load: say what is happening before the first corner
+    if (!o.quiet) process.stderr.write(`starting the ${o.engine} engine\n`);
     try {
-      await engine.version();
+      // a signal during the engine's start-up ends the wait at once; close() below stops the starting worker
+      const aborted = new Promise<false>((resolve) => controller.signal.addEventListener('abort', () => resolve(false), { once: true }));
+      if (!(await Promise.race([engine.version().then(() => true as const), aborted]))) throw controller.signal.reason;
     } catch (e) {
+      if (stoppedBy) {
+        process.stderr.write(`tankcheck: interrupted while the ${o.engine} engine was starting; nothing was simulated or written\n`);
+        return signalExit(stoppedBy);
+      }
       if (e instanceof EngineUnavailableError) {
         process.stderr.write(`tankcheck: engine ${o.engine} unavailable: ${e.message}\n`);
         return EXIT.engineUnavailable;
@@ -97,14 +112,13 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
       throw e;
     }
     // started before the first corner, so a log shows at once how much work is coming
-    const planned = filterCorners([...expandCorners(design), ...measuredCorners(design, measured?.points ?? [])], o.only).length;
-    const progress = createProgress(process.stderr, planned);
+    const progress = createProgress(process.stderr, corners.length, { quiet: o.quiet });
     progress.start(design.tolerances.corners === 'random'
       ? `screening ${filterCorners(expandCorners(design), o.only).length} corners with FHA and the ideal model, then simulating up to ${design.simulation.confirm ?? 20} of them`
       : undefined);
     const { results, waveforms, run } = await runStudy(design, {
       engine, jobs, only: o.only, signal: controller.signal,
-      cache: o.cache ? createFileCache(o.cacheDir) : undefined,
+      cache: cache ? createFileCache(o.cacheDir, { onWarning: (m) => process.stderr.write(`warning: ${m}\n`) }) : undefined,
       timeoutMs: o.timeout ? o.timeout * 1000 : undefined,
       onProgress: (p) => progress.update(p), measured,
     });
@@ -116,29 +130,31 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
       { path: join(o.out, 'junit.xml'), text: renderJunit(results, { failOn }) },
       { path: join(o.out, 'waveforms.json'), text: renderWaveformsJson(waveforms) },
       // what this run took from the cache: kept out of results.json, which stays byte-identical
-      { path: join(o.out, 'run-log.json'), text: `${JSON.stringify({ schema: 'tankcheck/run-log@1', cacheDir: o.cache ? o.cacheDir : null, ...run }, null, 2)}\n` },
+      { path: join(o.out, 'run-log.json'), text: `${JSON.stringify({ schema: 'tankcheck/run-log@1', cacheDir: cache ? o.cacheDir : null, ...run }, null, 2)}\n` },
     ];
     // Monte Carlo: one row per sample and operating point
     if (results.statistics) files.push({ path: join(o.out, 'samples.csv'), text: renderSamplesCsv(results) });
     if (o.html) files.push({ path: o.html, text: renderHtmlReport({ results, waveforms, design }) });
     await writeFilesAtomic(files);
-    // a Monte Carlo run lists the simulated corners; the screened ones are in the statistics and the files
-    const shown = results.statistics ? { ...results, corners: results.corners.filter((c) => c.status !== 'screened') } : results;
-    process.stdout.write(renderRunTable(shown, { color: Boolean(process.stdout.isTTY) && !process.env['NO_COLOR'] }));
-    process.stdout.write(`\n${renderSummary(results)}`);
-    process.stdout.write(renderMeasuredTable(results));
-    if (results.statistics) process.stdout.write(`\n${renderStatistics(results.statistics)}`);
-    if (results.baseline) process.stdout.write(renderBaseline(results.baseline));
-    process.stdout.write(`wrote ${files.map((f) => f.path).join(', ')}\n`);
-    if (o.cache) process.stderr.write(`cache: ${run.fromCache.length} of ${results.corners.length} corners from ${o.cacheDir}; ${run.simulated} operating points simulated now\n`);
+    if (!o.quiet) {
+      // a Monte Carlo run lists the simulated corners; the screened ones are in the statistics and the files
+      const shown = results.statistics ? { ...results, corners: results.corners.filter((c) => c.status !== 'screened') } : results;
+      process.stdout.write(renderRunTable(shown, { color: useColor(process.stdout) }));
+      process.stdout.write(`\n${renderSummary(results)}`);
+      process.stdout.write(renderMeasuredTable(results));
+      if (results.statistics) process.stdout.write(`\n${renderStatistics(results.statistics)}`);
+      if (results.baseline) process.stdout.write(renderBaseline(results.baseline));
+      process.stdout.write(`wrote ${files.map((f) => f.path).join(', ')}\n`);
+    }
+    if (cache && !o.quiet) process.stderr.write(`cache: ${run.fromCache.length} of ${results.corners.length} corners from ${o.cacheDir}; ${run.simulated} operating points simulated now\n`);
     if (results.incomplete) {
       const finished = results.corners.filter((c) => c.status !== 'predicted').length;
-      const rerun = o.cache ? ' (a rerun takes the finished ones from the cache)' : '';
+      const rerun = cache ? ' (a rerun takes the finished ones from the cache)' : '';
       process.stderr.write(`tankcheck: interrupted: ${finished} of ${results.corners.length} corners finished; the results are marked incomplete${rerun}\n`);
     }
-    const code = exitCodeFor(results, failOn);
+    const code = exitCodeFor(results, failOn, stoppedBy);
     const why = runFailures(results, failOn);
-    if (code === EXIT.diverged && why.length) {
+    if (code === EXIT.diverged && why.length && !o.quiet) {
       const shown = why.slice(0, 10).map((w) => `  ${w}`).join('\n');
       process.stdout.write(`exit ${code}:\n${shown}${why.length > 10 ? `\n  ... and ${why.length - 10} more` : ''}\n`);
     }

@@ -105,6 +105,9 @@ const corner: Schema = {
   },
 };
 
+/** The schema's `$id` (a URN: stable, and it claims no web address). */
+export const DESIGN_SCHEMA_ID = 'urn:tankcheck:schema:design:1';
+
 /**
  * JSON Schema (draft 2020-12) of the tankcheck design file, for editors (completion, hover text,
  * early red squiggles). It mirrors `parseDesign`, which remains the authority: the parser adds
@@ -113,6 +116,8 @@ const corner: Schema = {
  */
 export const designJsonSchema: Schema = {
   $schema: 'https://json-schema.org/draft/2020-12/schema',
+  // a name, not a download address: the file ships in the package (tankcheck/schema/design.schema.json)
+  $id: DESIGN_SCHEMA_ID,
   title: 'tankcheck design file',
   description: 'An LLC resonant converter design: tank, devices, operating corners and comparison limits. Values take engineering notation such as "27 nF", "1.5meg", "110 mohm"; a bare "M" is refused (write "m" for milli, "meg" for mega).',
   type: 'object',

@@ -63,7 +63,7 @@ describe('loadDesign', () => {
     execFileSync('mkfifo', [fifo]);
     for (const target of [fifo, '/dev/zero', dir]) {
       const r = await loadDesign(write('special.yaml', withDevices(target)));
-      expect(!r.ok && r.problems.map((p) => p.message)).toEqual([`model file "${target}": is not a regular file (a device, pipe or socket cannot be a model file)`]);
+      expect(!r.ok && r.problems.map((p) => p.message)).toEqual([`model file "${target}": is not a regular file (a device, pipe or socket cannot be read as a design or model file)`]);
     }
   });
   it('refuses non-UTF-8 bytes with their line and column', async () => {
@@ -74,11 +74,18 @@ describe('loadDesign', () => {
       'latin1.yaml:9:10: byte 0xB5 is not valid UTF-8; save the design file as UTF-8',
     ]);
   });
-  it('refuses files over 1 MB, directories and missing files', async () => {
+  it('refuses files over 1 MB, directories, FIFOs, devices and missing files', async () => {
     const big = await loadDesign(write('big.yaml', `${demo}${'#'.repeat(1_000_001)}\n`));
     expect(!big.ok && big.problems[0].code).toBe('too-large');
     const d = await loadDesign(dir);
     expect(!d.ok && d.problems[0].message).toBe('this is a directory, not a file');
+    // a FIFO (or device) as the design file is refused at once instead of waiting for a writer forever
+    const fifo = join(dir, 'design.fifo');
+    execFileSync('mkfifo', [fifo]);
+    for (const special of [fifo, '/dev/zero']) {
+      const f = await loadDesign(special);
+      expect(!f.ok && f.problems[0]).toMatchObject({ code: 'io', message: 'is not a regular file (a device, pipe or socket cannot be read as a design or model file)' });
+    }
     const none = await loadDesign(join(dir, 'none.yaml'));
     expect(!none.ok && none.problems[0]).toMatchObject({ code: 'io', message: 'the file does not exist' });
   });

@@ -27,14 +27,16 @@ const problem = (code: Problem['code'], path: string, message: string, extra: Pa
 
 /**
  * Read at most `max` bytes (one more to detect oversize) without trusting the reported file size.
- * `regularOnly`: refuse anything but a regular file. The open is non-blocking so that a FIFO named by
- * a design (a model path is not the user's own argument) cannot stall the loader waiting for a writer.
+ * Only a regular file is read. The open is non-blocking so that a FIFO (given as the design file, or
+ * named by a design as a model file) cannot stall the loader waiting for a writer.
  */
-async function readCapped(path: string, max: number, regularOnly = false): Promise<{ bytes: Uint8Array } | { error: string }> {
+async function readCapped(path: string, max: number, what: 'design' | 'model'): Promise<{ bytes: Uint8Array } | { error: string }> {
   let handle;
   try {
-    handle = await open(path, regularOnly ? constants.O_RDONLY | (constants.O_NONBLOCK ?? 0) : 'r');
-    if (regularOnly && !(await handle.stat()).isFile()) return { error: 'is not a regular file (a device, pipe or socket cannot be a model file)' };
+    handle = await open(path, constants.O_RDONLY | (constants.O_NONBLOCK ?? 0));
+    const st = await handle.stat();
+    if (what === 'design' && st.isDirectory()) return { error: 'this is a directory, not a file' };
+    if (!st.isFile()) return { error: 'is not a regular file (a device, pipe or socket cannot be read as a design or model file)' };
     const buf = new Uint8Array(max + 1);
     let n = 0;
     while (n < buf.length) {
@@ -57,7 +59,7 @@ async function loadModel(designPath: string, key: string, model: DeviceModel, at
   const path = `devices.${key}.file`;
   // shown in problems: relative to where the design path is relative to (usually the working directory)
   const shown = isAbsolute(model.file) ? model.file : join(dirname(designPath), model.file);
-  const read = await readCapped(resolve(shown), MAX_FILE_BYTES, true);
+  const read = await readCapped(resolve(shown), MAX_FILE_BYTES, 'model');
   // an unreadable model file is a problem of the design file's line that names it
   if ('error' in read) {
     const where = shown === model.file ? '' : ` (looked for ${shown})`;
@@ -79,7 +81,7 @@ async function loadModel(designPath: string, key: string, model: DeviceModel, at
  * its text. Never throws for problems in the files; they come back as `problems`.
  */
 export async function loadDesign(path: string): Promise<ParseDesignResult> {
-  const read = await readCapped(path, MAX_FILE_BYTES);
+  const read = await readCapped(path, MAX_FILE_BYTES, 'design');
   if ('error' in read) return { ok: false, problems: [problem(read.error.includes('larger') ? 'too-large' : 'io', '', read.error)] };
   const decoded = decodeUtf8(read.bytes);
   if (!decoded.ok) {

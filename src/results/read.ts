@@ -7,6 +7,10 @@
 import type { FhaResult } from '../fha/types.js';
 import type { Corner } from '../corners/types.js';
 import type { ComparisonRow, Divergence } from '../compare/types.js';
+import type { SimMetrics, ZvsState } from '../measure/types.js';
+import type { IdealMetrics } from '../ideal/metrics.js';
+import type { DivergenceCause } from '../compare/cause.js';
+import type { CheckSide, LimitCheck, LimitName } from '../limits/types.js';
 import type { BaselineReport, CornerFailure, CornerResult, CornerStatus, Results, ResultsSummary, SimSummary, WaveformExcerpt } from './types.js';
 import type { Problem } from '../design/problem.js';
 import { bool, boolOrNull, count, list, literal, num, numOrNull, nullable, object, oneOf, record, scalar, str, strOrNull, type Check, type ShapeProblem } from './shape.js';
@@ -17,7 +21,7 @@ export type ReadResult<T> = { ok: true; value: T } | { ok: false; problems: Prob
 /** Problems listed per file at most; the rest are counted. */
 export const MAX_PROBLEMS = 20;
 
-const STATUS: Record<CornerStatus, true> = { predicted: true, unreachable: true, ok: true, diverged: true, failed: true, 'not-settled': true, 'outside-limits': true };
+const STATUS: Record<CornerStatus, true> = { predicted: true, unreachable: true, ok: true, diverged: true, failed: true, 'not-settled': true, 'outside-limits': true, screened: true };
 const VERDICT: Record<ComparisonRow['verdict'], true> = { ok: true, diverged: true, info: true };
 const side: Check = (v, path, out) => {
   if (v !== -1 && v !== 0 && v !== 1) out.push({ path, message: `expected -1, 0 or 1, got ${JSON.stringify(v) ?? 'nothing'}` });
@@ -26,7 +30,7 @@ const side: Check = (v, path, out) => {
 const inputs = object<Omit<Corner, 'id'>>({
   vin: num, load: num, loadLabel: str, iout: num, pout: num, fs: numOrNull, lr: num, cr: num, lm: num, turnsRatio: num,
   tolerance: object<Corner['tolerance']>({ lr: side, cr: side, lm: side }, {}),
-}, {});
+}, { windingRatio: num, sample: count, deviation: object<NonNullable<Corner['deviation']>>({ lr: num, cr: num, lm: num, turnsRatio: num }, {}) });
 
 const fha = object<FhaResult>({
   fs: numOrNull, fr: num, fp: num, zr: num, rac: num, fn: numOrNull, q: num, ln: num, gain: numOrNull, gainTarget: num,
@@ -38,34 +42,54 @@ const fha = object<FhaResult>({
   diodeReverseVoltage: numOrNull, outputRippleCurrentRms: numOrNull, warnings: list(str),
 }, {});
 
-const sim = object<SimSummary>({
+const metricFields = {
   fs: num, gain: num, vout: num, voutRipple: num, iout: num, pout: num, tankCurrentRms: num, tankCurrentPeak: num,
   magnetizingCurrentPeak: num, crVoltagePeak: num, crVoltageMin: num, switchCurrentRms: num, switchTurnOffCurrent: num,
   diodeCurrentAvg: num, diodeCurrentPeak: num, diodeCurrentRms: num, diodeReverseVoltage: num, diodeReverseCurrent: num,
-  outputRippleCurrentRms: num, zvs: bool, zvsState: oneOf({ zvs: true, partial: true, hard: true }), zvsWorstVoltage: num,
-  zvsMarginTime: num, zcs: bool, zcsRatio: num, region: oneOf({ inductive: true, capacitive: true }), mode: str,
-  cycles: count, runs: count, simulations: count, settled: bool, settleError: numOrNull,
+  outputRippleCurrentRms: num, zvs: bool, zvsState: oneOf<ZvsState>({ zvs: true, partial: true, hard: true }), zvsWorstVoltage: num,
+  zvsMarginTime: num, zcs: bool, zcsRatio: num, region: oneOf<SimMetrics['region']>({ inductive: true, capacitive: true }), mode: str,
+};
+const region = oneOf<SimMetrics['region']>({ inductive: true, capacitive: true });
+const sim = object<SimSummary>({ ...metricFields, cycles: count, runs: count, simulations: count, settled: bool, settleError: numOrNull },
+  { inputPower: numOrNull, chargeBalanceError: numOrNull, periodicityError: numOrNull,
+    closest: object<NonNullable<SimSummary['closest']>>({ vout: num, fs: num, region }, {}) });
+const ideal = object<IdealMetrics>(metricFields, { inputPower: numOrNull });
+/** Sections whose inner fields this reader does not check (yet): they must at least be objects. */
+const anObject = record(() => {});
+
+const CAUSE: Record<DivergenceCause, true> = { approximation: true, circuit: true, unexplained: true };
+const LIMIT: Record<LimitName, true> = {
+  region: true, 'frequency.min': true, 'frequency.max': true, zvs: true, zvsMargin: true, crVoltage: true, tankCurrentRms: true,
+  switchCurrentRms: true, diodeReverseVoltage: true, diodeCurrentRms: true, outputRippleCurrentRms: true,
+};
+const checkSide = object<CheckSide>({ value: scalar, within: boolOrNull }, {});
+const check = object<LimitCheck>({
+  limit: oneOf(LIMIT), bound: scalar, kind: oneOf<LimitCheck['kind']>({ max: true, min: true, state: true }),
+  fha: checkSide, ideal: nullable(checkSide), sim: nullable(checkSide), flip: bool,
 }, {});
 
 const row = object<ComparisonRow>({ metric: str, fha: scalar, sim: scalar, error: numOrNull, tolerance: numOrNull, verdict: oneOf(VERDICT) },
-  { reason: str, unexpectedSign: bool });
-const divergence = object<Divergence>({ metric: str, fha: scalar, sim: scalar, error: numOrNull, tolerance: numOrNull, reason: str }, { unexpectedSign: bool });
+  { reason: str, unexpectedSign: bool, ideal: scalar, cause: oneOf(CAUSE) });
+const divergence = object<Divergence>({ metric: str, fha: scalar, sim: scalar, error: numOrNull, tolerance: numOrNull, reason: str },
+  { unexpectedSign: bool, ideal: scalar, cause: oneOf(CAUSE) });
 
 const corner = object<CornerResult>({
   id: str, inputs, fha, sim: nullable(sim), comparison: list(row), divergences: list(divergence), status: oneOf(STATUS),
-}, { failure: object<CornerFailure>({ kind: str, message: str }, { detail: str }) });
+}, { failure: object<CornerFailure>({ kind: str, message: str }, { detail: str }), ideal: nullable(ideal), idealReason: str, checks: list(check),
+  source: oneOf<'measured'>({ measured: true }), measured: anObject });
 
 const summary = object<ResultsSummary>({
-  corners: count, ok: count, diverged: count, failed: count, notSettled: count, predicted: count, unreachable: count, simulations: count,
+  corners: count, ok: count, diverged: count, failed: count, notSettled: count, predicted: count, unreachable: count, outsideLimits: count,
+  flips: count, simulations: count,
   worst: list(object<ResultsSummary['worst'][number]>({ id: str, metric: str, error: numOrNull, tolerance: numOrNull }, {})),
-}, {});
+}, { screened: count });
 
 const baseline = object<BaselineReport>({
   file: str, added: list(str), removed: list(str),
   statusChanges: list(object<BaselineReport['statusChanges'][number]>({ id: str, from: str, to: str }, {})),
   moved: list(object<BaselineReport['moved'][number]>({ id: str, metric: str, before: num, after: num, change: numOrNull, tolerance: num }, {})),
   regressed: bool,
-}, {});
+}, { checksOutside: list(object<NonNullable<BaselineReport['checksOutside']>[number]>({ id: str, limit: str, before: scalar, after: scalar, bound: scalar }, {})) });
 
 const results = object<Results>({
   schema: literal('tankcheck/results@1'),
@@ -74,7 +98,7 @@ const results = object<Results>({
   engine: nullable(object<NonNullable<Results['engine']>>({ name: str, version: str }, {})),
   corners: list(corner),
   summary,
-}, { incomplete: bool, baseline });
+}, { incomplete: bool, baseline, measured: anObject, statistics: anObject });
 
 const waveform = object<WaveformExcerpt>({ id: str, fs: num, t: list(num), series: record(list(num)), edges: list(num) }, {});
 const waveformsFile = object<{ schema: string; corners: WaveformExcerpt[] }>({ schema: literal('tankcheck/waveforms@1'), corners: list(waveform) }, {});

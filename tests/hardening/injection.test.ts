@@ -177,8 +177,9 @@ describe('output paths', () => {
     const t0 = performance.now();
     const r = await runCli(['fha', file, '--only', `${'*'.repeat(150)}x`]);
     expect(performance.now() - t0).toBeLessThan(10_000);
-    expect(r.code).toBe(0);
-    expect(r.stdout.split('\n').filter((l) => /^v\d/.test(l))).toHaveLength(0);
+    // no id ends in x: matching nothing is a usage error, not an empty green study
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/no corner matches/);
     const long = await runCli(['fha', file, '--only', '*'.repeat(5000)]);
     expect(long.code).toBe(2);
     expect(long.stderr).toMatch(/--only.*at most 200 characters/);

@@ -1,5 +1,5 @@
 // Interruption of `tankcheck run` by SIGINT/SIGTERM, with the built CLI as a child process (README
-// "Exit codes": 130, finished corners kept, results marked incomplete), plus --version/--help smoke
+// "Exit codes": 128 + the signal number, finished corners kept, results marked incomplete), plus --version/--help smoke
 // tests of the binary. The engines' job folders go to a private TMPDIR so that leftovers and stray
 // ngspice processes can be attributed to these tests.
 import { spawn, type ChildProcess } from 'node:child_process';
@@ -79,7 +79,7 @@ function pollJson(file: string): { stop: () => { reads: number; torn: number } }
 
 describe('interrupting tankcheck run', () => {
   for (const [sig, engine] of [['SIGINT', 'ngspice'], ['SIGTERM', 'wasm']] as const) {
-    it(`${sig} during run --engine ${engine}: exit 130, finished corners kept, "incomplete": true at the top, nothing left running, and a rerun takes them from the cache`, async () => {
+    it(`${sig} during run --engine ${engine}: exit 128 + signal number, finished corners kept, "incomplete": true at the top, nothing left running, and a rerun takes them from the cache`, async () => {
       const file = gridDesign(`grid-${engine}.yaml`);
       const out = join(dir, `out-${engine}`);
       const cache = join(dir, `cache-${engine}`);
@@ -93,7 +93,7 @@ describe('interrupting tankcheck run', () => {
       const { code, signal } = await child.exit;
       const { torn } = poll.stop();
       expect(signal).toBeNull();
-      expect(code, child.stderr()).toBe(130);
+      expect(code, child.stderr()).toBe(sig === 'SIGTERM' ? 143 : 130); // 128 + the signal number
       expect(child.stderr()).toMatch(new RegExp(`tankcheck: ${sig}: stopping; finished corners are kept`));
       expect(torn).toBe(0);
 
@@ -118,6 +118,24 @@ describe('interrupting tankcheck run', () => {
       expect(res2.incomplete).toBeUndefined();
       const log = JSON.parse(readFileSync(join(dir, 'rerun', 'run-log.json'), 'utf8'));
       expect([...log.fromCache].sort()).toEqual([...finished].sort());
+    });
+  }
+
+  for (const [sig, want] of [['SIGINT', 130], ['SIGHUP', 129]] as const) {
+    it(`${sig} while the embedded engine is still starting: exit ${want} at once, nothing simulated or written`, async () => {
+      const file = gridDesign(`grid-start-${sig}.yaml`);
+      const out = join(dir, `out-start-${sig}`);
+      const child = start(['run', file, '--engine', 'wasm', '--out', out, '--no-cache', '--jobs', '1']);
+      await until(child, /^starting the wasm engine$/m);
+      const t0 = Date.now();
+      child.proc.kill(sig);
+      const { code } = await child.exit;
+      // it took about 58 s: the worker was stopped, but its start-up time limit kept the process alive
+      expect(Date.now() - t0).toBeLessThan(5000);
+      expect(code, child.stderr()).toBe(want);
+      expect(child.stderr()).toMatch(/interrupted while the wasm engine was starting/);
+      expect(child.stderr()).not.toMatch(/simulating/);
+      expect(existsSync(join(out, 'results.json'))).toBe(false);
     });
   }
 
