@@ -5,8 +5,9 @@ import { formatProblem } from '../design/problem.js';
 import { renderResultsJson, renderWaveformsJson } from '../report/json.js';
 import { predictStudy } from '../run/study.js';
 import { loadDemo } from '../../tests/support/demo.js';
+import { sharedFile } from '../../tests/support/shared.js';
 
-const shared = (name: string): string => readFileSync(new URL(`../../shared/report/${name}`, import.meta.url), 'utf8');
+const shared = (name: string): string => readFileSync(sharedFile('report', name), 'utf8');
 const lines = (r: ReturnType<typeof readResults> | ReturnType<typeof readWaveforms>): string[] => (r.ok ? [] : r.problems.map((p) => formatProblem(p, 'unused')));
 
 describe('readResults', () => {
@@ -17,6 +18,12 @@ describe('readResults', () => {
     const recorded = readResults(shared('demo-results.json'), 'demo-results.json');
     expect(lines(recorded)).toEqual([]);
     expect(recorded.ok && recorded.value.corners.length).toBe(6);
+    // summary counts added after results@1 first shipped: an older file (a baseline) reads with them at 0
+    const old = JSON.parse(written);
+    delete old.summary.outsideLimits;
+    delete old.summary.flips;
+    const r2 = readResults(JSON.stringify(old), 'old.json');
+    expect(r2.ok && [r2.value.summary.outsideLimits, r2.value.summary.flips]).toEqual([0, 0]);
   });
 
   it('a truncated file is a JSON problem with the line and column where it ends', async () => {

@@ -78,11 +78,12 @@ const corner = object<CornerResult>({
 }, { failure: object<CornerFailure>({ kind: str, message: str }, { detail: str }), ideal: nullable(ideal), idealReason: str, checks: list(check),
   source: oneOf<'measured'>({ measured: true }), measured: anObject });
 
-const summary = object<ResultsSummary>({
-  corners: count, ok: count, diverged: count, failed: count, notSettled: count, predicted: count, unreachable: count, outsideLimits: count,
-  flips: count, simulations: count,
+/** Summary counts added after results@1 first shipped: optional on read (an older baseline lacks them) and filled in as 0. */
+type LaterCounts = 'outsideLimits' | 'flips';
+const summary = object<Omit<ResultsSummary, LaterCounts> & Partial<Pick<ResultsSummary, LaterCounts>>>({
+  corners: count, ok: count, diverged: count, failed: count, notSettled: count, predicted: count, unreachable: count, simulations: count,
   worst: list(object<ResultsSummary['worst'][number]>({ id: str, metric: str, error: numOrNull, tolerance: numOrNull }, {})),
-}, { screened: count });
+}, { outsideLimits: count, flips: count, screened: count });
 
 const baseline = object<BaselineReport>({
   file: str, added: list(str), removed: list(str),
@@ -106,6 +107,8 @@ const waveformsFile = object<{ schema: string; corners: WaveformExcerpt[] }>({ s
 /** Read a results file (`tankcheck/results@1`): shape, field types, and corner ids that are unique. */
 export function readResults(text: string, file: string): ReadResult<Results> {
   return readJson<Results>(text, file, results, (r, out) => {
+    r.summary.outsideLimits ??= 0;
+    r.summary.flips ??= 0;
     const seen = new Set<string>();
     r.corners.forEach((c, i) => {
       if (seen.has(c.id)) out.push({ path: `corners[${i}].id`, message: `corner ${JSON.stringify(c.id)} appears twice` });
