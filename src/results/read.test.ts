@@ -43,7 +43,7 @@ describe('readResults', () => {
     expect(edit((r) => { delete r.corners; })).toEqual(['r.json: corners: missing']);
     expect(edit((r) => { r.corners[2].fha = null; })).toEqual(['r.json: corners[2].fha: expected an object, got null']);
     expect(edit((r) => { r.corners[1].fha.gain = 'high'; r.corners[0].status = 'great'; })).toEqual([
-      'r.json: corners[0].status: expected one of "predicted", "unreachable", "ok", "diverged", "failed", "not-settled", "outside-limits", got "great"',
+      'r.json: corners[0].status: expected one of "predicted", "unreachable", "ok", "diverged", "failed", "not-settled", "outside-limits", "screened", got "great"',
       'r.json: corners[1].fha.gain: expected a number or null, got "high"',
     ]);
     expect(edit((r) => { r.corners[1].id = r.corners[0].id; })).toEqual([`r.json: corners[1].id: corner "${good.corners[0].id}" appears twice`]);
