@@ -11,6 +11,7 @@ import type { SimMetrics, ZvsState } from '../measure/types.js';
 import type { IdealMetrics } from '../ideal/metrics.js';
 import type { DivergenceCause } from '../compare/cause.js';
 import type { CheckSide, LimitCheck, LimitName } from '../limits/types.js';
+import type { ShardInfo } from './merge.js';
 import type { BaselineReport, CornerFailure, CornerResult, CornerStatus, Results, ResultsSummary, SimSummary, WaveformExcerpt } from './types.js';
 import type { Problem } from '../design/problem.js';
 import { bool, boolOrNull, count, list, literal, num, numOrNull, nullable, object, oneOf, record, scalar, str, strOrNull, type Check, type ShapeProblem } from './shape.js';
@@ -99,7 +100,8 @@ const results = object<Results>({
   engine: nullable(object<NonNullable<Results['engine']>>({ name: str, version: str }, {})),
   corners: list(corner),
   summary,
-}, { incomplete: bool, baseline, measured: anObject, statistics: anObject });
+}, { incomplete: bool, baseline, measured: anObject, statistics: anObject,
+  shard: object<ShardInfo>({ index: count, count, total: count, items: list(count), fingerprint: str }, {}) });
 
 const waveform = object<WaveformExcerpt>({ id: str, fs: num, t: list(num), series: record(list(num)), edges: list(num) }, {});
 const waveformsFile = object<{ schema: string; corners: WaveformExcerpt[] }>({ schema: literal('tankcheck/waveforms@1'), corners: list(waveform) }, {});
