@@ -6,7 +6,7 @@ import type { CornerResult, Results } from '../../results/types.js';
 import type { MonteCarloStatistics } from '../../statistics/summary.js';
 import { operatingPoint } from '../../statistics/corners.js';
 import { esc } from './escape.js';
-import { eng, pct } from './format.js';
+import { eng, pctAbs } from './format.js';
 import { frame, linearScale, niceDomain, px } from './svg.js';
 
 const W = 420;
@@ -35,7 +35,7 @@ function boundOf(results: Results, limit: string): number | null {
 }
 
 /** An SVG histogram with vertical bound lines; confirmed corners as triangles under the axis. */
-export function histogram(points: Point[], bounds: { at: number; label: string }[], unit: string, title: string): string {
+export function histogram(points: Point[], bounds: { at: number; label: string }[], unit: string, title: string, counted = 'corners'): string {
   if (points.length === 0) return '';
   const values = points.map((p) => p.value);
   const lo = Math.min(...values, ...bounds.map((b) => b.at));
@@ -53,7 +53,7 @@ export function histogram(points: Point[], bounds: { at: number; label: string }
   const bars = counts.map((n, i) => (n ? `<rect class="bar" x="${px(M.l + sx(dx.d0 + i * width))}" y="${px(M.t + sy(n))}" width="${px(Math.max(1, sx(dx.d0 + width) - sx(dx.d0) - 1))}" height="${px(ph - sy(n))}"><title>${n}</title></rect>` : '')).join('');
   const lines = bounds.map((b) => `<path class="bound" d="M${px(M.l + sx(b.at))} ${M.t}v${ph}"/><text class="bound-label" x="${px(M.l + sx(b.at) + 3)}" y="${M.t + 10}">${esc(b.label)}</text>`).join('');
   const marks = points.filter((p) => p.confirmed).map((p) => `<path class="confirmed" d="M${px(M.l + sx(p.value))} ${M.t + ph + 1}l-3 6h6z"/>`).join('');
-  const axes = frame({ x: M.l, y: M.t, w: pw, h: ph, xAxis: { scale: sx, ticks: dx.ticks, format: (v) => eng(v, unit), label: title }, yAxis: { scale: sy, ticks: dy.ticks, format: (v) => String(v), label: 'corners' } });
+  const axes = frame({ x: M.l, y: M.t, w: pw, h: ph, xAxis: { scale: sx, ticks: dx.ticks, format: (v) => eng(v, unit), label: title }, yAxis: { scale: sy, ticks: dy.ticks, format: (v) => String(v), label: counted } });
   return `<svg class="plot hist" viewBox="0 0 ${W} ${H}" role="img" aria-label="${esc(title)}">${axes}${bars}${lines}${marks}</svg>`;
 }
 
@@ -106,7 +106,7 @@ export function renderStatisticsSection(results: Results): string {
   const s = results.statistics;
   if (!s) return '<p>Not a Monte Carlo run (tolerances.corners: random).</p>';
   const y = (name: string, e: MonteCarloStatistics['yield']['fha']) =>
-    `<tr><th scope="row">${name}</th><td class="num">${pct(e.value)}</td><td class="num">${pct(e.low)} .. ${pct(e.high)}</td><td class="num">${e.meets} of ${s.samples}${e.unknown ? ` (${e.unknown} without a value)` : ''}</td></tr>`;
+    `<tr><th scope="row">${name}</th><td class="num">${pctAbs(e.value)}</td><td class="num">${pctAbs(e.low)} .. ${pctAbs(e.high)}</td><td class="num">${e.meets} of ${s.samples}${e.unknown ? ` (${e.unknown} without a value)` : ''}</td></tr>`;
   // the current ZVS needs grows with Vin: relative to it, one bound (1) fits every operating point
   const zvs = worstPerSample(results, 'zvsMargin', true, true);
   const cr = worstPerSample(results, 'crVoltage', false);
@@ -115,7 +115,7 @@ export function renderStatisticsSection(results: Results): string {
     `<p>${s.samples} samples (seed ${s.seed}, ${esc(s.distribution)}) at ${s.operatingPoints.length} operating points, screened by FHA and the ideal model; ${s.confirmed.count} corners confirmed by simulation (marked &#9650; under the histograms), ${s.confirmed.outside} confirmed samples outside a limit.</p>`,
     `<table><thead><tr><th>yield from</th><th>share meeting every limit</th><th>95 % interval (Clopper-Pearson)</th><th>samples</th></tr></thead><tbody>${y('FHA', s.yield.fha)}${y('ideal model', s.yield.ideal)}</tbody></table>`,
     `<div class="hists">${frequencyFigures(results)}</div>`,
-    `<div class="hists">${zvs.length ? `<figure>${histogram(zvs, [{ at: 1, label: 'needed' }], '', 'worst turn-off current / needed, per sample')}<figcaption>Smallest switch turn-off current of each sample divided by the current ZVS needs with its margin (2 Coss Vin / dead time x (1 + zvsMargin)); below 1 is outside.</figcaption></figure>` : ''}${cr.length ? `<figure>${histogram(cr, cb !== null ? [{ at: cb, label: 'rating' }] : [], 'V', 'worst Cr peak per sample')}<figcaption>Largest Cr peak voltage of each sample against its derated rating.</figcaption></figure>` : ''}</div>`,
+    `<div class="hists">${zvs.length ? `<figure>${histogram(zvs, [{ at: 1, label: 'needed' }], '', 'worst turn-off current / needed, per sample', 'samples')}<figcaption>Smallest switch turn-off current of each sample divided by the current ZVS needs with its margin (2 Coss Vin / dead time x (1 + zvsMargin)); below 1 is outside.</figcaption></figure>` : ''}${cr.length ? `<figure>${histogram(cr, cb !== null ? [{ at: cb, label: 'rating' }] : [], 'V', 'worst Cr peak per sample', 'samples')}<figcaption>Largest Cr peak voltage of each sample against its derated rating.</figcaption></figure>` : ''}</div>`,
     '<h3>Which tolerance drives each limit</h3>',
     sensitivityBars(s),
   ].join('\n');

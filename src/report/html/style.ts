@@ -55,7 +55,9 @@ svg.plot .curve-label{font-size:10.5px;font-weight:600;paint-order:stroke;stroke
 svg.plot .gap{stroke:#333;stroke-width:1}
 svg.plot .fwindow{fill:#009E73;opacity:.08;stroke:none}svg.plot .fedge{stroke:#009E73;stroke-width:1.2;stroke-dasharray:5 3}svg.plot text.fedge{fill:#00684b;stroke:none;font-size:10px}
 svg.plot .bound{stroke:#8f1d12;stroke-width:1.5}svg.plot .rating{stroke:#8f1d12;stroke-width:1;stroke-dasharray:5 3}
-svg.plot text.bound,svg.plot text.rating{fill:#8f1d12;stroke:none;font-size:10px}svg.plot text.row{font-size:10px}
+svg.plot text.bound,svg.plot text.rating{fill:#8f1d12;stroke:none;font-size:10px}
+svg.plot .bar{fill:#0072B2;fill-opacity:.7}svg.plot .confirmed{fill:#000}svg.plot text.bound-label{fill:#8f1d12;font-size:10px}
+.hists{display:flex;flex-wrap:wrap;gap:8px}.hists figure{margin:0;max-width:440px}.sens{display:flex;gap:6px;align-items:center;font-size:12px}.sens-name{width:6em}.sens-bar{display:inline-block;height:10px;background:#0072B2}svg.plot text.row{font-size:10px}
 svg.plot .pt-ideal{stroke:#E69F00;stroke-width:2}svg.plot.stress .pt-sim{fill:#0072B2}svg.plot .pt-sim.out{stroke:#D55E00;stroke-width:2}svg.plot.stress .pt-fha{stroke:#333}
 .missed{border:2px solid #8f1d12;background:#fbeceb;padding:6px 12px;margin:10px 0}.missed h3{margin:4px 0}.missed-none{color:#00684b}
 .map .lim{display:block;font-size:12px}.legend .fwindow{fill:#009E73;opacity:.25}
