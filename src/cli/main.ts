@@ -6,7 +6,9 @@ import { renderResultsJson } from '../report/json.js';
 import { renderResultsCsv } from '../report/csv.js';
 import { fsReason, writeFilesAtomic } from '../run/files.js';
 import { writeDecks } from './decks.js';
-import { runCommand, type RunFlags } from './run.js';
+import { runCommand, HUGE_PLAN, type RunFlags } from './run.js';
+import { mergeCommand, type MergeFlags } from './merge.js';
+import { parseSize, pruneCache } from './cache.js';
 import { reportCommand } from './report.js';
 import { EXIT, renderExitTable, UsageError } from './exit.js';
 import { requireMatches } from './common.js';
@@ -120,11 +122,39 @@ function program(): Command {
     .addOption(new Option('--fail-on <what>', '"divergence": exit 1 on any divergence beyond tolerance (default: only on unexplained ones)').choices(['divergence']))
     .option('--measured <file>', 'CSV of points measured on a prototype (vin, load, fs, vout, ...): each is simulated at its fs and compared')
     .option(quiet, quietText)
+    .option('--shard <K/N>', 'run shard K of N (1-based) of the plan; with --shard-index-env, the count N')
+    .option('--shard-index-env <NAME>', 'read the shard index from this variable, counted from 0 (JOB_COMPLETION_INDEX)')
+    .option('--dry-run', 'print the plan (corners, cost, shards) and stop; nothing is simulated')
+    .option('--yes', `run a plan of more than ${HUGE_PLAN} simulated corners on this machine`)
     .description('simulate every corner and compare with FHA')
     .addHelpText('after', `\n${helpExamples()}\n\nExit codes:\n${renderExitTable()}\n`)
     .action(async (file: string, o: RunFlags) => {
       const design = await loadOrReport(file);
       throw new ExitSignal(await runCommand({ ...design, file }, o));
+    });
+
+  p.command('merge').argument('<parts...>', 'shard parts: results.json files or the folders holding them')
+    .requiredOption('-o, --out <dir>', 'folder for the merged results.json, results.csv, junit.xml, waveforms.json')
+    .option('--html <file>', 'also write the HTML report of the merged result')
+    .option('--baseline <results.json>', 'compare the merged result with an earlier run')
+    .option('--baseline-tolerance <fraction>', 'relative change of a simulated metric that counts as moved', '0.01')
+    .option('--fail-on <what>', '"divergence": exit 1 on any divergence beyond tolerance')
+    .description('merge the shards of one study into the files a single run writes (byte-identical)')
+    .addHelpText('after', `\nExit codes (of the merged result; 2 also for parts that do not make one study):\n${renderExitTable()}\n`)
+    .action(async (parts: string[], o: MergeFlags) => {
+      throw new ExitSignal(await mergeCommand(parts, o));
+    });
+
+  p.command('cache').description('manage the corner cache')
+    .command('prune')
+    .option('--max-size <size>', 'keep at most this many bytes: k, M, G are binary (1024, 1024^2, 1024^3), e.g. 500M', '500M')
+    .option('--cache-dir <dir>', 'corner cache folder', '.tankcheck-cache')
+    .description('remove the oldest cache entries (by modification time) until the cache fits --max-size')
+    .action(async (o: { maxSize: string; cacheDir: string }) => {
+      const max = parseSize(o.maxSize);
+      if (max === null) throw new UsageError(`--max-size expects bytes with an optional k, M or G (binary: 1024 each), e.g. 500M; got ${JSON.stringify(o.maxSize)}`);
+      const r = await pruneCache(o.cacheDir, max);
+      process.stdout.write(`${o.cacheDir}: ${r.entries} entries, ${r.bytes} bytes; removed ${r.removed} oldest (${r.freed} bytes); ${r.bytes - r.freed} bytes left (limit ${max})\n`);
     });
 
   p.command('report').argument('<results>', 'results.json from tankcheck run')

@@ -1,7 +1,11 @@
 import { join } from 'node:path';
 import type { Design } from '../design/types.js';
 import { createEngine, defaultJobs, maxJobs, EngineUnavailableError, type EngineName } from '../engine/index.js';
-import { runStudy } from '../run/study.js';
+import { runPlan } from '../run/study.js';
+import { planStudy } from '../plan/plan.js';
+import { parseShard, shardItems } from '../plan/shard.js';
+import { renderPlan } from './dryrun.js';
+import { studyFingerprint } from './fingerprint.js';
 import { createFileCache } from '../run/cache.js';
 import { writeFilesAtomic } from '../run/files.js';
 import { renderResultsJson, renderWaveformsJson } from '../report/json.js';
@@ -41,7 +45,18 @@ export interface RunFlags {
   failOn?: string;
   measured?: string;
   quiet?: boolean;
+  /** `K/N` (1-based), or the count N with shardIndexEnv. */
+  shard?: string;
+  /** Environment variable holding the 0-based shard index (JOB_COMPLETION_INDEX). */
+  shardIndexEnv?: string;
+  /** Print the plan and stop. */
+  dryRun?: boolean;
+  /** Run a plan above HUGE_PLAN simulated corners. */
+  yes?: boolean;
 }
+
+/** Simulated corners above which `run` asks for --yes (about half an hour of one core on ngspice). */
+export const HUGE_PLAN = 2000;
 
 /** `tankcheck run`: returns the exit code; writes results even when interrupted. */
 export async function runCommand(design: Design, o: RunFlags): Promise<number> {
@@ -53,6 +68,20 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
   const extra = measuredCorners(design, measured?.points ?? []);
   // the design's corners and the measured points, as the study will run them
   const corners = [...requireMatches(design, o.only, extra), ...filterCorners(extra, o.only)];
+  const shard = o.shard !== undefined || o.shardIndexEnv !== undefined
+    ? parseShard(o.shard, o.shardIndexEnv !== undefined ? { name: o.shardIndexEnv, value: process.env[o.shardIndexEnv] } : undefined) : undefined;
+  if (typeof shard === 'string') throw new UsageError(shard);
+  const plan = planStudy(design, { only: o.only, measured });
+  if (o.dryRun) {
+    process.stdout.write(renderPlan(plan, shard));
+    return EXIT.ok;
+  }
+  const mine = shard ? shardItems(plan.items.map((it) => it.cost), shard).map((i) => plan.items[i]!) : plan.items;
+  const toSimulate = mine.filter((it) => it.simulate).length;
+  if (!o.quiet) process.stderr.write(`plan: ${plan.items.length} corners${shard ? `, shard ${shard.index}/${shard.count} runs ${mine.length}` : ''}; ${toSimulate} to simulate\n`);
+  if (toSimulate > HUGE_PLAN && !o.yes) {
+    throw new UsageError(`${toSimulate} corners to simulate is more than ${HUGE_PLAN}: check the plan with --dry-run, split it with --shard K/N, or pass --yes to run it all here`);
+  }
   // everything that can be refused is refused before the first simulation
   const baseline = o.baseline ? orRefuse(await loadResultsFile(o.baseline), `--baseline ${o.baseline}`) : undefined;
   if (baseline && baseline.design.name !== design.name) {
@@ -112,12 +141,13 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
       throw e;
     }
     // started before the first corner, so a log shows at once how much work is coming
-    const progress = createProgress(process.stderr, corners.length, { quiet: o.quiet });
-    progress.start(design.tolerances.corners === 'random'
-      ? `screening ${filterCorners(expandCorners(design), o.only).length} corners with FHA and the ideal model, then simulating up to ${design.simulation.confirm ?? 20} of them`
+    const progress = createProgress(process.stderr, mine.length, { quiet: o.quiet });
+    progress.start(plan.monteCarlo
+      ? `screening ${mine.length} corners with FHA and the ideal model, then simulating ${toSimulate} of them`
       : undefined);
-    const { results, waveforms, run } = await runStudy(design, {
-      engine, jobs, only: o.only, signal: controller.signal,
+    const fingerprint = shard ? studyFingerprint(design, { name: engine.name, version: await engine.version() }, { only: o.only, measured: measured?.points }) : '';
+    const { results, waveforms, run } = await runPlan(design, plan, {
+      engine, jobs, only: o.only, signal: controller.signal, shard: shard ? { ...shard, fingerprint } : undefined,
       cache: cache ? createFileCache(o.cacheDir, { onWarning: (m) => process.stderr.write(`warning: ${m}\n`) }) : undefined,
       timeoutMs: o.timeout ? o.timeout * 1000 : undefined,
       onProgress: (p) => progress.update(p), measured,
