@@ -54,7 +54,8 @@ const quiet = '-q, --quiet';
 const quietText = 'print only warnings and errors (for CI); the exit code still tells the outcome';
 const onlyText = 'corners whose id matches: * and ? wildcards match the whole id, a plain pattern any part of it';
 
-function program(): Command {
+/** The commander program (exported so tests can check that documented flags exist). */
+export function program(): Command {
   const p = new Command('tankcheck')
     .description('LLC resonant converter corners: FHA predictions checked against ngspice simulation')
     .version(TOOL_VERSION, '-V, --version')
