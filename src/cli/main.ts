@@ -9,6 +9,7 @@ import { writeDecks } from './decks.js';
 import { runCommand, HUGE_PLAN, type RunFlags } from './run.js';
 import { mergeCommand, type MergeFlags } from './merge.js';
 import { parseSize, pruneCache } from './cache.js';
+import { parseShard } from '../plan/shard.js';
 import { reportCommand } from './report.js';
 import { EXIT, renderExitTable, UsageError } from './exit.js';
 import { requireMatches } from './common.js';
@@ -97,13 +98,16 @@ export function program(): Command {
     .requiredOption('-o, --out <dir>', 'folder for the decks and index.csv')
     .option('--only <pattern>', onlyText, onlyPattern)
     .option(quiet, quietText)
+    .option('--shard <K/N>', 'only the decks of shard K of N (1-based) of the plan')
     .description('write one SPICE deck per corner (runs by hand with ngspice -b) and an index')
     .addHelpText('after', '\nExample:\n  tankcheck decks demo.yaml -o decks && cd decks && ngspice -b v390_100pct_reg_nom.cir')
-    .action(async (file: string, o: { out: string; only?: string; quiet?: boolean }) => {
+    .action(async (file: string, o: { out: string; only?: string; quiet?: boolean; shard?: string }) => {
       const design = await loadOrReport(file);
       requireMatches(design, o.only);
+      const shard = o.shard !== undefined ? parseShard(o.shard) : undefined;
+      if (typeof shard === 'string') throw new UsageError(shard);
       await checkOutputFolder(o.out, '--out');
-      const n = await writeDecks(design, o.out, o.only);
+      const n = await writeDecks(design, o.out, o.only, shard);
       if (!o.quiet) process.stdout.write(`wrote ${n} decks and index.csv to ${o.out}\n`);
     });
 
