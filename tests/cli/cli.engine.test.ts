@@ -51,7 +51,7 @@ describe('tankcheck fha and init', () => {
   it('unknown options and commands exit 2', async () => {
     expect((await runCli(['fha'])).code).toBe(2);
     expect((await runCli(['frobnicate'])).code).toBe(2);
-    expect((await runCli(['run', DEMO_FILE, '--engine', 'spectre'])).code).toBe(2);
+    expect((await runCli(['run', DEMO_FILE, '--engine', 'fluxotron'])).code).toBe(2);
   });
 });
 

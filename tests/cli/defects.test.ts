@@ -6,7 +6,8 @@
 // made with /proc (no one, root included, can create a file there) or a path that runs through a
 // regular file.
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, realpathSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -158,6 +159,8 @@ describe('init', () => {
     // the line points at the schema file of this installation, relative to the file written
     const schema = JSON.parse(readFileSync(join(dir, 'sub', m![1]!), 'utf8'));
     expect(schema.$id).toBe('urn:tankcheck:schema:design:1');
+    // and the same file is the package subpath tankcheck/schema/design.schema.json
+    expect(createRequire(import.meta.url).resolve('tankcheck/schema/design.schema.json')).toBe(realpathSync(join(dir, 'sub', m![1]!)));
     writeFileSync(target, 'mine\n');
     const again = await runCli(['init', target]);
     expect(again.code).toBe(2);
