@@ -13,6 +13,8 @@ import { renderHtmlReport } from '../report/html/index.js';
 import { renderSummary } from '../report/table.js';
 import { compareBaseline, renderBaseline } from '../compare/baseline.js';
 import { loadDesign } from '../design/index.js';
+import { loadResultsFile } from '../run/resultsFile.js';
+import { orRefuse } from './report.js';
 import { exitCodeFor, UsageError } from './exit.js';
 import type { FailOn } from '../results/gate.js';
 
@@ -28,31 +30,8 @@ export interface MergeFlags {
 async function readPart(arg: string): Promise<MergePart> {
   const isDir = await stat(arg).then((s) => s.isDirectory(), () => false);
   const file = isDir ? join(arg, 'results.json') : arg;
-  let text: string;
-  try {
-    text = await readFile(file, 'utf8');
-  } catch (e) {
-    throw new UsageError(`${file}: cannot read (${e instanceof Error ? e.message : e})`);
-  }
-  let data: Record<string, unknown>;
-  try {
-    data = JSON.parse(text) as Record<string, unknown>;
-  } catch (e) {
-    throw new UsageError(`${file}: not complete JSON, a truncated or damaged part (${e instanceof Error ? e.message : e})`);
-  }
-  const need = (ok: boolean, path: string, what: string) => {
-    if (!ok) throw new UsageError(`${file}: ${path}: ${what}`);
-  };
-  need(data?.['schema'] === 'tankcheck/results@1', 'schema', 'expected "tankcheck/results@1" (not a tankcheck results file)');
-  need(Array.isArray(data['corners']), 'corners', 'missing or not a list');
-  (data['corners'] as unknown[]).forEach((c, i) => need(typeof (c as { id?: unknown })?.id === 'string', `corners[${i}].id`, 'missing'));
-  need(typeof data['design'] === 'object' && data['design'] !== null, 'design', 'missing');
-  const s = data['shard'] as Record<string, unknown> | undefined;
-  if (s !== undefined) {
-    for (const k of ['index', 'count', 'total']) need(Number.isInteger(s[k]), `shard.${k}`, 'missing or not a whole number');
-    need(Array.isArray(s['items']) && (s['items'] as unknown[]).every(Number.isInteger), 'shard.items', 'missing or not a list of plan indices');
-    need(typeof s['fingerprint'] === 'string', 'shard.fingerprint', 'missing');
-  }
+  // the one checking reader: a truncated or edited part is refused with its file and field path
+  const data = orRefuse(await loadResultsFile(file), file);
   const wfile = join(dirname(file), 'waveforms.json');
   let waveforms: WaveformExcerpt[] = [];
   try {
@@ -61,7 +40,7 @@ async function readPart(arg: string): Promise<MergePart> {
     // a part without waveforms has none to give; a damaged one is refused
     if ((e as NodeJS.ErrnoException).code !== 'ENOENT') throw new UsageError(`${wfile}: not complete JSON (${e instanceof Error ? e.message : e})`);
   }
-  return { source: file, results: data as unknown as Results, waveforms };
+  return { source: file, results: data, waveforms };
 }
 
 /**

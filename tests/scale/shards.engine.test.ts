@@ -51,12 +51,12 @@ describe('three shards merged equal one run (system ngspice)', () => {
     cpSync(p(3), cut, { recursive: true });
     const text = readFileSync(join(cut, 'results.json'), 'utf8');
     writeFileSync(join(cut, 'results.json'), text.slice(0, text.length / 2));
-    cases.push({ parts: [p(1), p(2), cut], message: /cut[/\\]results\.json: not complete JSON/ });
+    cases.push({ parts: [p(1), p(2), cut], message: /cut[/\\]results\.json:\d+:\d+: not valid JSON: the file ends early/ });
     const noItems = join(dir, 'no-items');
     mkdirSync(noItems, { recursive: true });
     delete other.shard.items;
     writeFileSync(join(noItems, 'results.json'), JSON.stringify(other));
-    cases.push({ parts: [p(1), p(2), noItems], message: /no-items[/\\]results\.json: shard\.items: missing/ });
+    cases.push({ parts: [p(1), p(2), noItems], message: /no-items[/\\]results\.json\S*: shard\.items/ });
     for (const [i, c] of cases.entries()) {
       const out = join(dir, `refused-${i}`);
       const r = await runCli(['merge', ...c.parts, '--out', out]);
