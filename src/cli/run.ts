@@ -64,6 +64,12 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
   const failOn: FailOn = o.failOn === 'divergence' ? 'divergence' : 'default';
   const baselineTol = Number(o.baselineTolerance);
   if (!(baselineTol >= 0 && baselineTol < 1)) throw new UsageError('--baseline-tolerance must be a fraction in [0, 1)');
+  // --jobs is a wish: each wasm worker needs ~0.5 GB, so never start more than free memory holds
+  const limit = maxJobs(o.engine);
+  if (o.jobs !== undefined && o.jobs > limit) {
+    process.stderr.write(`warning: --jobs ${o.jobs} is more than this machine can hold for the ${o.engine} engine (free memory or cores); using ${limit}\n`);
+  }
+  const jobs = Math.min(o.jobs ?? defaultJobs(o.engine), limit);
   const measured = o.measured ? await loadMeasured(o.measured) : undefined;
   const extra = measuredCorners(design, measured?.points ?? []);
   // the design's corners and the measured points, as the study will run them
@@ -96,12 +102,6 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
     if (p) process.stderr.write(`warning: ${p.reason}\n`);
     cache = !p;
   }
-  // --jobs is a wish: each wasm worker needs ~0.5 GB, so never start more than free memory holds
-  const limit = maxJobs(o.engine);
-  if (o.jobs !== undefined && o.jobs > limit) {
-    process.stderr.write(`warning: --jobs ${o.jobs} is more than this machine can hold for the ${o.engine} engine (free memory or cores); using ${limit}\n`);
-  }
-  const jobs = Math.min(o.jobs ?? defaultJobs(o.engine), limit);
   const engine = createEngine(o.engine, { path: o.ngspicePath, workers: jobs, keepDir: o.keepDecks });
   const controller = new AbortController();
   let stoppedBy: NodeJS.Signals | undefined;
