@@ -1,15 +1,16 @@
 // The HTML report in headless Chromium: a real demo run (system ngspice), loaded from a file:// URL.
 // Needs Debian's chromium: the engine tier's global setup stops with one line when it is missing.
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadDesignOrThrow } from '../../src/design/load.js';
+import { parseMeasured } from '../../src/measured/index.js';
 import { createNgspiceEngine } from '../../src/engine/native.js';
 import { renderHtmlReport } from '../../src/report/html/index.js';
-import { WAVES_OPEN } from '../../src/report/html/waveforms.js';
+import { WAVES_OPEN, waveformCorners } from '../../src/report/html/waveforms.js';
 import { syntheticStudy } from '../../src/report/html/fixture.test-support.js';
 import type { Results, WaveformExcerpt } from '../../src/results/types.js';
 import { runStudy } from '../../src/run/study.js';
@@ -32,7 +33,11 @@ describe('HTML report in headless Chromium', () => {
     const { design } = await loadDesignOrThrow(new URL('../../examples/demo.yaml', import.meta.url).pathname);
     const engine = createNgspiceEngine({ tmpRoot: dir });
     try {
-      ({ results, waveforms } = await runStudy(design, { engine, jobs: 2 }));
+      // three of the demo's invented bench points (390 V, 10 A at 90, 99 and 110 kHz) beside the design's corners
+      const parsed = parseMeasured(readFileSync(new URL('../../examples/demo-measured.csv', import.meta.url), 'utf8'));
+      if (!parsed.ok) throw new Error('examples/demo-measured.csv does not parse');
+      const points = parsed.points.filter((p) => p.vin === 390 && p.load.kind === 'ampere' && p.load.value === 10);
+      ({ results, waveforms } = await runStudy(design, { engine, jobs: 2, measured: { file: 'examples/demo-measured.csv', points } }));
     } finally {
       await engine.close();
     }
@@ -67,11 +72,17 @@ describe('HTML report in headless Chromium', () => {
       return { kind, declared: Number(s.getAttribute('data-series')), lengths: paths.map((p) => p.getTotalLength()),
         box: s.getBoundingClientRect().width };
     }));
-    const loads = new Set(results.corners.map((c) => c.inputs.loadLabel)).size;
-    const vins = new Set(results.corners.map((c) => c.inputs.vin)).size;
-    expect(plots.filter((p) => p.kind === 'gain')).toHaveLength(vins);
-    expect(plots.filter((p) => p.kind === 'gain').reduce((n, p) => n + p.lengths.length, 0)).toBe(loads * vins);
-    const drawn = waveforms.filter((w) => results.corners.some((c) => c.id === w.id && (c.status === 'diverged' || c.status === 'outside-limits' || c.id.endsWith('_nom'))));
+    const vins = new Set(results.corners.map((c) => c.inputs.vin));
+    // one curve per load present at each Vin (the bench points add their own load, 10 A, at 390 V)
+    const curves = [...vins].reduce((n, v) => n + new Set(results.corners.filter((c) => c.inputs.vin === v).map((c) => c.inputs.loadLabel)).size, 0);
+    expect(curves).toBe(2 * 3 + 1);
+    expect(plots.filter((p) => p.kind === 'gain')).toHaveLength(vins.size);
+    expect(plots.filter((p) => p.kind === 'gain').reduce((n, p) => n + p.lengths.length, 0)).toBe(curves);
+    // the nominal corner and every diverged or outside-limits one get a figure; the first WAVES_OPEN
+    // are drawn at load, the rest wait in a collapsed block (the 200-corner test below opens it)
+    const picked = waveformCorners(results);
+    expect(picked.length).toBeGreaterThan(WAVES_OPEN); // the bench corners diverge too: both parts are exercised
+    const drawn = picked.slice(0, WAVES_OPEN).filter((c) => waveforms.some((w) => w.id === c.id));
     expect(plots.filter((p) => p.kind === 'wave')).toHaveLength(drawn.length);
     // the demo's limits: frequency min and max, ZVS margin and six ratings, one stress figure each
     expect(plots.filter((p) => p.kind === 'stress')).toHaveLength(9);
@@ -81,6 +92,22 @@ describe('HTML report in headless Chromium', () => {
       expect(p.declared).toBeGreaterThan(0);
       for (const l of p.lengths) expect(l).toBeGreaterThan(10); // px of drawn line
     }
+  });
+
+  it('draws the bench points as triangles on the gain plot with a legend entry, and lists them in the bench table', async () => {
+    expect(results.measured?.points).toBe(3);
+    const markers = await page.$$eval('#gain svg.plot path.pt-meas', (ps) => ps.map((p) => {
+      const b = p.getBoundingClientRect();
+      return { w: b.width, h: b.height, fill: p.getAttribute('fill') };
+    }));
+    expect(markers).toHaveLength(3);
+    for (const m of markers) { expect(m.w).toBeGreaterThan(5); expect(m.h).toBeGreaterThan(5); }
+    expect(await page.locator('#gain svg.plot[data-measured="3"]').count()).toBe(1); // all three at Vin 390 V
+    const legend = page.locator('#gain .legend span', { hasText: 'measured on the bench' });
+    expect(await legend.isVisible()).toBe(true);
+    expect(await legend.locator('path.pt-meas').count()).toBe(1);
+    expect(await page.locator('#bench tbody tr[id^="b-"]').count()).toBe(3);
+    expect(await page.locator('#measured .caution').textContent()).toContain('probe and instrument error');
   });
 
   it('has one table row per corner; the status filter hides rows and counts them', async () => {
