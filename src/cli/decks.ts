@@ -4,7 +4,7 @@ import { buildDeck } from '../netlist/deck.js';
 import { planStudy, type PlanItem, type StudyPlan } from '../plan/plan.js';
 import { shardItems, type ShardSpec } from '../plan/shard.js';
 import { withHandMeasurements } from '../netlist/hand.js';
-import { csvField } from '../report/csv.js';
+import { renderCsv } from '../report/csv.js';
 import { insideDir, writeFilesAtomic } from '../run/files.js';
 
 /** Cycles in a deck written for hand runs, and the window its .meas cards average over. */
@@ -26,7 +26,7 @@ export function handDeck(design: Design, it: PlanItem): string {
  */
 export async function writeDecks(design: Design, dir: string, only?: string, shard?: ShardSpec, plan: StudyPlan = planStudy(design, { only })): Promise<number> {
   const chosen = shard ? shardItems(plan.items.map((it) => it.cost), shard).map((i) => plan.items[i]!) : plan.items;
-  const index = [['corner', 'vin_V', 'load_ohm', 'fs_Hz', 'fs_source', 'lr_H', 'cr_F', 'lm_H', 'turns_ratio', 'fha_vout_V', 'fha_gain', 'deck'].join(',')];
+  const index = [['corner', 'vin_V', 'load_ohm', 'fs_Hz', 'fs_source', 'lr_H', 'cr_F', 'lm_H', 'turns_ratio', 'fha_vout_V', 'fha_gain', 'deck']] as unknown[][];
   await mkdir(dir, { recursive: true });
   let n = 0;
   for (const it of chosen.filter((x) => x.simulate)) {
@@ -34,9 +34,9 @@ export async function writeDecks(design: Design, dir: string, only?: string, sha
     const source = c.fs !== null ? 'fixed' : start!.source === 'model' ? 'model-regulated' : fha.fs !== null ? 'fha-regulated' : 'zero-phase-boundary';
     const name = `${c.id}.cir`;
     await writeFilesAtomic([{ path: insideDir(dir, name), text: handDeck(design, it) }]);
-    index.push([c.id, c.vin, c.load, start!.fs, source, c.lr, c.cr, c.lm, c.turnsRatio, fha.vout, fha.gain, name].map(csvField).join(','));
+    index.push([c.id, c.vin, c.load, start!.fs, source, c.lr, c.cr, c.lm, c.turnsRatio, fha.vout, fha.gain, name]);
     n++;
   }
-  await writeFilesAtomic([{ path: insideDir(dir, 'index.csv'), text: `${index.join('\r\n')}\r\n` }]);
+  await writeFilesAtomic([{ path: insideDir(dir, 'index.csv'), text: renderCsv(index) }]);
   return n;
 }

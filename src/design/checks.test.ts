@@ -35,9 +35,10 @@ describe('tank plausibility', () => {
   it('flags unit-prefix slips at tank positions (common practice windows)', () => {
     expect(run([['lm: 300 uH', 'lm: 300 H']]).errors[0]).toBe(
       'd.yaml:11:7: tank.lm: implausible value "300 H" (300 H), outside 1 nH .. 1 H; check the unit prefix');
-    expect(run([['cr: 42 nF', 'cr: 42 F']]).errors[0]).toContain('tank.cr: implausible value "42 F" (42 F), outside 1 pF .. 1 F');
-    expect(run([['cr: 42 nF', 'cr: 42 mF']]).warnings).toContain(
-      'd.yaml:10:7: tank.cr: unusual value "42 mF" (42 mF), usually 1 pF .. 1 mF; check the unit prefix');
+    expect(run([['cr: 42 nF', 'cr: 42 F']]).errors[0]).toContain('tank.cr: implausible value "42 F" (42 F), outside 1 pF .. 1 mF');
+    expect(run([['cr: 42 nF', 'cr: 42 mF']]).errors[0]).toContain('tank.cr: implausible value "42 mF" (42 mF), outside 1 pF .. 1 mF');
+    expect(run([['cr: 42 nF', 'cr: 420 uF']]).warnings).toContain(
+      'd.yaml:10:7: tank.cr: unusual value "420 uF" (420 uF), usually 1 pF .. 100 uF; check the unit prefix');
     expect(run([['lr: 60 uH', 'lr: 60 MH']]).errors[0]).toContain('implausible value "60 MH" (60 MH)');
   });
   it('warns when the tolerance extremes bring Lm down to Lr', () => {

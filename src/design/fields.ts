@@ -47,7 +47,7 @@ const L_WINDOW = [1e-9, 1] as const;
 
 export const TANK_FIELDS = {
   lr: q('henry', '60 uH', 'Series resonant inductance Lr referred to the primary (discrete inductor plus leakage).', { plausible: L_WINDOW }),
-  cr: q('farad', '42 nF', 'Series resonant capacitance Cr (for a split capacitor, the sum of both halves).', { plausible: [1e-12, 1], usual: [1e-12, 1e-3] }),
+  cr: q('farad', '42 nF', 'Series resonant capacitance Cr (for a split capacitor, the sum of both halves).', { plausible: [1e-12, 1e-3], usual: [1e-12, 1e-4] }),
   lm: q('henry', '310 uH', 'Magnetizing inductance Lm referred to the primary; must exceed Lr.', { plausible: L_WINDOW }),
   turnsRatio: q('number', '8', 'Turns ratio n = Np/Ns; with a center-tapped rectifier Ns is one half of the secondary.', { plausible: [1e-3, 1000] }),
   integrated: { kind: 'bool', default: false, description: 'Lr is the transformer leakage instead of a discrete inductor: lr = primary inductance with the secondary shorted, lm = open-circuit primary inductance minus lr, turnsRatio = winding ratio Np/Ns (the models use k Np/Ns, k = sqrt(Lm/(Lr+Lm))).' } as BoolSpec,

@@ -1,7 +1,7 @@
 import type { Results } from '../results/types.js';
 import { operatingPoint } from '../statistics/corners.js';
 import { SAMPLED_PARAMETERS } from '../statistics/sample.js';
-import { csvField } from './csv.js';
+import { renderCsv } from './csv.js';
 
 /**
  * samples.csv of a Monte Carlo run: one row per sample and operating point, with the sampled tank,
@@ -19,7 +19,7 @@ export function renderSamplesCsv(results: Results): string {
     const w = checks.map((x) => x[side]?.within ?? null);
     return w.some((x) => x === false) ? 'no' : w.length && w.every((x) => x === true) ? 'yes' : '';
   };
-  const lines = [head.join(',')];
+  const lines: unknown[][] = [head];
   for (const c of corners) {
     const i = c.inputs;
     const checks = c.checks ?? [];
@@ -30,7 +30,7 @@ export function renderSamplesCsv(results: Results): string {
     lines.push([c.id, i.sample, operatingPoint(c), i.vin, i.load, i.lr, i.cr, i.lm, i.turnsRatio,
       ...SAMPLED_PARAMETERS.map((p) => i.deviation?.[p] ?? 0), c.status, c.fha.fs, c.ideal?.fs ?? null, c.sim?.fs ?? null,
       ...limits.flatMap((l) => [value(l, 'fha'), value(l, 'ideal'), value(l, 'sim')]),
-      all('fha', checks), all('ideal', checks), c.sim ? all('sim', checks) : ''].map(csvField).join(','));
+      all('fha', checks), all('ideal', checks), c.sim ? all('sim', checks) : '']);
   }
-  return `${lines.join('\r\n')}\r\n`;
+  return renderCsv(lines);
 }
