@@ -5,24 +5,13 @@ import { predictCorner } from '../fha/predict.js';
 import { expandCorners } from '../corners/expand.js';
 import { makeDesign } from '../../tests/support/design.js';
 import type { SimMetrics } from '../measure/types.js';
+import { simLike } from './simMetrics.test-support.js';
 
 const design = makeDesign();
 const corner = expandCorners(design)[0]!;
 const fha = predictCorner(design, corner); // worked example 6.3: fn = 0.894, below resonance
 
-/** Simulated metrics equal to FHA's, then overridden. */
-function sim(over: Partial<SimMetrics>): SimMetrics {
-  const base: SimMetrics = {
-    fs: fha.fs!, gain: fha.gain!, vout: fha.vout!, voutRipple: 0.1, iout: fha.iout!, pout: fha.vout! * fha.iout!,
-    tankCurrentRms: fha.tankCurrentRms!, tankCurrentPeak: fha.tankCurrentPeak!, magnetizingCurrentPeak: fha.magnetizingCurrentPeak!,
-    crVoltagePeak: fha.crVoltagePeak!, crVoltageMin: fha.crVoltageMin!, switchCurrentRms: fha.switchCurrentRms!,
-    switchTurnOffCurrent: fha.switchTurnOffCurrent!, diodeCurrentAvg: fha.diodeCurrentAvg!, diodeCurrentPeak: fha.diodeCurrentPeak!,
-    diodeCurrentRms: fha.diodeCurrentRms!, diodeReverseVoltage: fha.diodeReverseVoltage!, diodeReverseCurrent: 0,
-    outputRippleCurrentRms: fha.outputRippleCurrentRms!, zvs: true, zvsState: 'zvs', zvsWorstVoltage: 0, zvsMarginTime: 1e-7,
-    zcs: true, zcsRatio: 0, region: 'inductive', mode: 'PO',
-  };
-  return { ...base, ...over };
-}
+const sim = (over: Partial<SimMetrics>): SimMetrics => simLike(fha, { zvsMarginTime: 1e-7, ...over });
 
 describe('compareCorner', () => {
   it('identical values: every numeric row ok with error 0, no divergence', () => {

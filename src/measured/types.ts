@@ -35,18 +35,7 @@ export type MeasuredParse =
   | { ok: false; problems: MeasuredProblem[] };
 
 /** What results.json keeps of a measured point: the measured values and each model's errors. */
-export interface MeasuredSummary {
-  /** Line of the point in its file. */
-  line: number;
-  vin: number;
-  fs: number;
-  vout: number;
-  iin?: number;
-  pin?: number;
-  tankCurrentRms?: number;
-  crVoltagePeak?: number;
-  switchTurnOffCurrent?: number;
-  note?: string;
+export interface MeasuredSummary extends Omit<MeasuredPoint, 'load'> {
   /** Pout / Pin of the prototype, when the file gives iin or pin. */
   efficiency?: number;
   /**
