@@ -77,6 +77,14 @@ export async function runCommand(design: Design, o: RunFlags): Promise<number> {
   const shard = o.shard !== undefined || o.shardIndexEnv !== undefined
     ? parseShard(o.shard, o.shardIndexEnv !== undefined ? { name: o.shardIndexEnv, value: process.env[o.shardIndexEnv] } : undefined) : undefined;
   if (typeof shard === 'string') throw new UsageError(shard);
+  // Planning runs FHA and the ideal model on every corner (tens of ms each): a grid far beyond
+  // HUGE_PLAN is refused on its count before that, unless --yes or a dry run asks for the plan.
+  // A Monte Carlo design simulates only its confirm set, so its grid size alone says nothing.
+  const perShard = shard ? Math.ceil(corners.length / shard.count) : corners.length;
+  if (design.tolerances.corners !== 'random' && perShard > HUGE_PLAN && !o.yes && !o.dryRun) {
+    throw new UsageError(`${corners.length} corners planned${shard ? ` (about ${perShard} in this shard)` : ''}, more than ${HUGE_PLAN}: split it with --shard K/N, or pass --yes to run it all here`);
+  }
+  if (!o.quiet) process.stderr.write(`planning ${corners.length} corners\n`);
   const plan = planStudy(design, { only: o.only, measured });
   if (o.dryRun) {
     process.stdout.write(renderPlan(plan, shard));
