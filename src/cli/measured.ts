@@ -1,6 +1,6 @@
-import { readFile, stat } from 'node:fs/promises';
 import { parseMeasured, type MeasuredPoint } from '../measured/index.js';
 import { UsageError } from './exit.js';
+import { readRegularFile } from '../run/files.js';
 
 /** Largest measured-points file read, bytes: far above any bench log, it bounds a wrong file. */
 export const MAX_MEASURED_BYTES = 32 * 1024 * 1024;
@@ -11,12 +11,10 @@ export const MAX_MEASURED_BYTES = 32 * 1024 * 1024;
  * anything is simulated or written.
  */
 export async function loadMeasured(file: string): Promise<{ file: string; points: MeasuredPoint[] }> {
-  const st = await stat(file).catch((e: NodeJS.ErrnoException) => {
-    throw new UsageError(`${file}: cannot read the measured-points file (${e.code ?? e.message})`);
-  });
-  if (!st.isFile()) throw new UsageError(`${file}: the measured-points file must be a regular file`);
-  if (st.size > MAX_MEASURED_BYTES) throw new UsageError(`${file}: larger than ${MAX_MEASURED_BYTES / 1024 / 1024} MiB; not a measured-points file`);
-  const r = parseMeasured(await readFile(file, 'utf8'));
+  // one non-blocking open, type and size checked on the handle: a pipe or a swapped file is refused
+  const read = await readRegularFile(file, MAX_MEASURED_BYTES);
+  if ('error' in read) throw new UsageError(`${file}: cannot read the measured-points file: ${read.error}`);
+  const r = parseMeasured(read.text);
   if (!r.ok) {
     for (const p of r.problems) process.stderr.write(`${file}:${p.line}:${p.column}: ${p.field ? `${p.field}: ` : ''}${p.message}\n`);
     throw new UsageError(`${file}: ${r.problems.length} problem(s) in the measured points; nothing was simulated or written`);
