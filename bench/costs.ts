@@ -1,14 +1,14 @@
 /**
  * Informational: how much of a run's time goes into saving and reading back data. The same
- * first-run deck (3 x WINDOW_CYCLES cycles, model start, one regulated demo corner) saving every cycle (what simulateSteady's
- * first run does) and saving only the last WINDOW_CYCLES-cycle measurement window, alternating, per engine.
+ * first-run deck (APPROACH_CYCLES cycles, model start, one regulated demo corner) saving every cycle (what simulateSteady's
+ * first run does: it reads the state at every cycle boundary) and saving only the last CHECK_CYCLES-cycle window, alternating, per engine.
  */
 import { createEngine, type EngineName } from '../src/engine/index.js';
 import { expandCorners } from '../src/corners/expand.js';
 import { predictCorner } from '../src/fha/predict.js';
 import { startPoint } from '../src/plan/start.js';
 import { buildDeck } from '../src/netlist/deck.js';
-import { WINDOW_CYCLES } from '../src/run/steady.js';
+import { APPROACH_CYCLES, CHECK_CYCLES } from '../src/run/steady.js';
 import type { BenchDesign } from './settling.js';
 import { log, median } from './util.js';
 
@@ -24,8 +24,8 @@ export interface SaveCost {
 export async function measureSaveCost(d: BenchDesign, cornerIndex: number, reps = 5): Promise<SaveCost[]> {
   const corner = expandCorners(d.design)[cornerIndex]!;
   const sp = startPoint(d.design, corner, predictCorner(d.design, corner), 'model');
-  const cycles = 3 * WINDOW_CYCLES;
-  const decks = [cycles, WINDOW_CYCLES].map((saveCycles) => buildDeck({ design: d.design, corner, fs: sp.fs, seed: sp.seed, cycles, saveCycles }).text);
+  const cycles = APPROACH_CYCLES;
+  const decks = [cycles, CHECK_CYCLES].map((saveCycles) => buildDeck({ design: d.design, corner, fs: sp.fs, seed: sp.seed, cycles, saveCycles }).text);
   const out: SaveCost[] = [];
   for (const name of ['ngspice', 'wasm'] as const) {
     const engine = createEngine(name, { workers: 1 });
@@ -46,7 +46,7 @@ export async function measureSaveCost(d: BenchDesign, cornerIndex: number, reps 
       }
       const c: SaveCost = { engine: name, cornerId: corner.id, reps, saveAllMs: median(all), saveWindowMs: median(win) };
       out.push(c);
-      log(`save cost ${name} ${corner.id}: ${cycles} cycles saving all ${c.saveAllMs.toFixed(0)} ms, saving the last ${WINDOW_CYCLES} ${c.saveWindowMs.toFixed(0)} ms`);
+      log(`save cost ${name} ${corner.id}: ${cycles} cycles saving all ${c.saveAllMs.toFixed(0)} ms, saving the last ${CHECK_CYCLES} ${c.saveWindowMs.toFixed(0)} ms`);
     } finally {
       await engine.close();
     }

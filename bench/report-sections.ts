@@ -8,7 +8,7 @@ import type { MemoryCase } from './memory.js';
 import type { FirstPoint } from './settling.js';
 import type { SaveCost } from './costs.js';
 import { fix, median, pct } from './util.js';
-import { WINDOW_CYCLES } from '../src/run/steady.js';
+import { APPROACH_CYCLES, CHECK_CYCLES } from '../src/run/steady.js';
 
 const kHz = (fs: number | null | undefined) => fix(fs === null || fs === undefined ? null : fs / 1e3, 3);
 
@@ -120,10 +120,10 @@ export function saveCostLines(cs: readonly SaveCost[]): string[] {
   if (cs.length === 0) return ['(not measured)'];
   const c0 = cs[0]!;
   return [
-    `simulateSteady saves all vectors for every cycle of a run, though only the last ${WINDOW_CYCLES}-cycle window is measured and the earlier ` +
-      `windows need only v(out). The same ${3 * WINDOW_CYCLES}-cycle deck (${c0.cornerId}, model start; the first run of an operating point), ` +
+    `simulateSteady saves all vectors for every cycle of a run: the last ${CHECK_CYCLES}-cycle window is measured, and the state at every ` +
+      `cycle boundary feeds the extrapolation. The same ${APPROACH_CYCLES}-cycle deck (${c0.cornerId}, model start; the first run of an operating point), ` +
       `median of ${c0.reps} alternating runs per variant:`, '',
-    `| engine | saving all ${3 * WINDOW_CYCLES} cycles (ms) | saving the last ${WINDOW_CYCLES} (ms) | last ${WINDOW_CYCLES} / all |`, '|---|--:|--:|--:|',
+    `| engine | saving all ${APPROACH_CYCLES} cycles (ms) | saving the last ${CHECK_CYCLES} (ms) | last ${CHECK_CYCLES} / all |`, '|---|--:|--:|--:|',
     ...cs.map((c) => `| ${c.engine} | ${c.saveAllMs.toFixed(0)} | ${c.saveWindowMs.toFixed(0)} | ${(c.saveWindowMs / c.saveAllMs).toFixed(2)} |`),
   ];
 }

@@ -94,8 +94,8 @@ export const SECTION_FIELDS = {
   simulation: {
     accuracy: { kind: 'enum', values: ['fast', 'normal', 'fine'], default: 'normal', description: 'Simulation accuracy profile (time step and tolerances).' } as EnumSpec,
     settleTolerance: q('ratio', '0.1%', 'Relative agreement of successive output-voltage averages that counts as steady state.', { default: 0.001, below: 0.5, usual: [1e-6, 0.01] }),
-    chargeBalanceTolerance: q('ratio', '1%', 'Output capacitor charge balance that counts as steady state: |average capacitor current over the last 12 cycles| / Io.', { default: 0.01, below: 0.5, usual: [1e-5, 0.05] }),
-    periodicityTolerance: q('ratio', '1%', 'Tank periodicity that counts as steady state: change of tank current and Cr voltage over the last 12 cycles, relative to each one\'s peak.', { default: 0.01, below: 0.5, usual: [1e-5, 0.05] }),
+    chargeBalanceTolerance: q('ratio', '1%', 'Output capacitor charge balance that counts as steady state: |average capacitor current over the check window| / Io (the last 4 cycles of a run, or the whole check run).', { default: 0.01, below: 0.5, usual: [1e-5, 0.05] }),
+    periodicityTolerance: q('ratio', '1%', 'Tank periodicity that counts as steady state: change of tank current and Cr voltage over the check window, relative to each one\'s peak.', { default: 0.01, below: 0.5, usual: [1e-5, 0.05] }),
     maxCycles: q('number', '2000', 'Switching periods simulated at most per corner before it is reported as not settled.', { default: 2000, integer: true, plausible: [1, 1e6], usual: [50, 1e5] }),
     zvsThreshold: q('ratio', '5%', 'Switch voltage at turn-on below this fraction of Vin counts as ZVS.', { default: 0.05, below: 0.5 }),
     confirm: q('number', '20', 'Corners of a Monte Carlo run (corners: random) simulated to confirm the screening: the worst per limit plus a seeded random validation set; 0 screens only.', { sign: 'nonNegative', integer: true, default: 20, atMost: 10000 }),

@@ -4,6 +4,7 @@ import type { Waveforms, SwitchTrace, DiodeTrace } from '../measure/types.js';
 import type { DeckSeed } from './types.js';
 import { MIN_KNEE_VOLTAGE } from './devices.js';
 import { rectifierDrop } from '../fha/predict.js';
+import { locate, valueAt } from '../measure/window.js';
 
 type Vectors = Record<string, Float64Array>;
 
@@ -77,14 +78,23 @@ export function toWaveforms(design: Design, corner: Corner, fs: number, v: Vecto
 
 /** State at the last saved point, to continue a run from where the previous one ended. */
 export function finalState(w: Waveforms, v: Vectors): DeckSeed {
-  const k = w.t.length - 1;
+  return stateAt(w, v, w.t[w.t.length - 1]!);
+}
+
+/**
+ * Circuit state at time `time` (linear interpolation between saved points), in the DeckSeed
+ * variables: the states a run starts from. At a whole number of cycles after the deck's time 0 it
+ * is the state at the same switching phase as the deck's initial conditions.
+ */
+export function stateAt(w: Waveforms, v: Vectors, time: number): DeckSeed {
+  const p = locate(w.t, time);
   return {
-    vo: need(v, 'v(co)')[k]!,
-    ir: w.tankCurrent[k]!,
-    im: w.magnetizingCurrent[k]!,
-    vcr: w.crVoltage[k]!,
-    va: need(v, 'v(a)')[k]!,
-    vb: w.inverter === 'full-bridge' ? need(v, 'v(b)')[k]! : 0,
+    vo: valueAt(need(v, 'v(co)'), p),
+    ir: valueAt(w.tankCurrent, p),
+    im: valueAt(w.magnetizingCurrent, p),
+    vcr: valueAt(w.crVoltage, p),
+    va: valueAt(need(v, 'v(a)'), p),
+    vb: w.inverter === 'full-bridge' ? valueAt(need(v, 'v(b)'), p) : 0,
   };
 }
 

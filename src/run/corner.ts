@@ -7,7 +7,7 @@ import type { CornerResult, SimSummary, WaveformExcerpt } from '../results/types
 import { failed, simulated } from '../results/build.js';
 import { compareCorner } from '../compare/compare.js';
 import { evaluateLimits } from '../limits/evaluate.js';
-import { simulateSteady, WINDOW_CYCLES } from './steady.js';
+import { simulateSteady } from './steady.js';
 import { deadTimeProblem, regulate, type RegulateResult } from './regulate.js';
 import { unreachableResult } from './unreachable.js';
 import { formatSi } from '../units/index.js';
@@ -70,11 +70,11 @@ export async function simulateCorner(engine: SimEngine, design: Design, corner: 
     chargeBalanceError: steady.chargeBalanceError, periodicityError: steady.periodicityError };
   if (unreachable) {
     const result = withIdeal(unreachableResult(design, corner, fha, { ...sim, closest: unreachable.closest }), ideal);
-    return { result, waveform: excerpt(corner.id, steady.waveforms as Waveforms, steady.windowStart, WINDOW_CYCLES) };
+    return { result, waveform: excerpt(corner.id, steady.waveforms as Waveforms, steady.windowStart, steady.windowCycles) };
   }
   const cmp = compareCorner(design, fha, steady.metrics, regulated, ideal.ideal);
   const measured = { sim, comparison: cmp.rows, divergences: cmp.divergences, checks: evaluateLimits(design, corner.vin, fha, sim, ideal.ideal) };
   const result: CornerResult = withIdeal(regulationMet ? simulated(corner, fha, measured)
     : failed(corner, fha, { kind: 'regulation', message: `no switching frequency met ${design.output.voltage} V within 0.5 % in ${simulations} simulations (closest ${steady.metrics.vout.toPrecision(5)} V at ${(steady.fs / 1e3).toPrecision(5)} kHz)` }, measured), ideal);
-  return { result, waveform: excerpt(corner.id, steady.waveforms as Waveforms, steady.windowStart, WINDOW_CYCLES) };
+  return { result, waveform: excerpt(corner.id, steady.waveforms as Waveforms, steady.windowStart, steady.windowCycles) };
 }
