@@ -1,6 +1,7 @@
 /** RESULTS.md as a string, from one bench run's measurements. */
 import { CHECK_CYCLES } from '../src/run/steady.js';
 import { renderScreening, type ScreeningCase } from './screening.js';
+import { renderConfirmed, type ConfirmedCase } from './confirmed.js';
 import {
   BEFORE, CYCLES_STRETCH, CYCLES_TARGET, ENGINE_RATIO_TARGET, FHA_RATE_TARGET, FIRST_RUN_CYCLES, MEMORY_TARGET_MB, SIMS_TARGET,
   type MethodSummary, type ScoredRow,
@@ -43,6 +44,8 @@ export interface BenchData {
   ideal?: IdealCase;
   /** Case 9, Monte Carlo screening (bench/screening.ts). */
   screening?: ScreeningCase;
+  /** Case 10, cycles per confirmed Monte Carlo corner (bench/confirmed.ts). */
+  confirmed?: ConfirmedCase;
 }
 
 interface Target { name: string; target: string; figure: string; ok: boolean }
@@ -66,6 +69,8 @@ function targets(d: BenchData): Target[] {
     { name: '5. cache', target: 'second run: 0 simulations, cache hits = corners', figure: `${d.cache.secondSimulations} simulations, ${d.cache.secondCacheHits}/${d.cache.corners} hits, time ratio ${(d.cache.secondMs / d.cache.firstMs).toFixed(3)}`, ok: d.cache.secondSimulations === 0 && d.cache.secondCacheHits === d.cache.corners && d.cache.sameValues },
     { name: '7. output capacitor', target: `mean cycles per corner with 10 mF <= ${CAP_RATIO_TARGET}x those with 470 uF, every corner charge-balanced within ${pct(CAP_BALANCE_TARGET, 0).replace('+', '')}`,
       figure: `${fix(cap.large, 1)} / ${fix(cap.small, 1)} = ${fix(cap.ratio, 2)}x; worst balance ${pct(cap.worst).replace('+', '')}`, ok: cap.ratio <= CAP_RATIO_TARGET && cap.worst <= CAP_BALANCE_TARGET && cap.allSettled },
+    ...(d.screening ? [{ name: '9. screening', target: '6000 sample-corners through FHA + the ideal model in <= 30 s on one core', figure: `${d.screening.seconds.toFixed(1)} s wall, ${d.screening.cpuSeconds.toFixed(1)} CPU s`, ok: d.screening.seconds <= 30 && d.screening.cpuSeconds <= 30 }] : []),
+    ...(d.confirmed ? [{ name: '10. confirmed corners', target: `mean cycles per confirmed corner <= ${CYCLES_STRETCH}, every one proven settled`, figure: `${d.confirmed.meanCycles.toFixed(1)} (${d.confirmed.confirmed} corners, ${d.confirmed.settled} settled)`, ok: d.confirmed.meanCycles <= CYCLES_STRETCH && d.confirmed.settled === d.confirmed.confirmed }] : []),
     { name: '6. memory', target: `peak RSS per wasm worker <= ${MEMORY_TARGET_MB} MB`, figure: `${worstMem.toFixed(0)} MB (worst of ${d.memory.rows.map((r) => `${r.workers}`).join(' and ')} worker runs)`, ok: worstMem <= MEMORY_TARGET_MB },
   ];
 }
@@ -146,6 +151,7 @@ export function renderResults(d: BenchData): string {
     ...capLines(d.capacitor), '',
     ...(d.ideal ? ['## 8. The ideal column (demo and charger, cost per corner and agreement with the simulation, both engines)', '', ...idealLines(d.ideal), ''] : []),
     ...(d.screening ? [renderScreening(d.screening)] : []),
+    ...(d.confirmed ? [renderConfirmed(d.confirmed, CYCLES_STRETCH), ''] : []),
     '## Cost drivers in the run path (informational)', '',
     ...S.saveCostLines(d.saveCost), '',
     '## Why targets were missed', '',

@@ -10,6 +10,7 @@ import { expandCorners } from '../src/corners/expand.js';
 import { createEngine, defaultJobs } from '../src/engine/index.js';
 import { describeMachine, sourcesChangedSince } from './machine.js';
 import { firstPoints, runSettling, type BenchDesign } from './settling.js';
+import { measureConfirmed } from './confirmed.js';
 import { refKey, runReferences, type RefRequest } from './reference.js';
 import { methodSummaries, scoreRows } from './analyze.js';
 import { compareEngines } from './engines.js';
@@ -94,6 +95,11 @@ async function main(): Promise<void> {
   phaseDone('8. ideal column');
   const screening = measureScreening(designs[0]!.design);
   phaseDone('9. Monte Carlo screening');
+  log('case 10: cycles per confirmed Monte Carlo corner (system ngspice)');
+  const confirmedEngine = createEngine('ngspice');
+  const confirmed = await measureConfirmed(designs[0]!.design, confirmedEngine);
+  await confirmedEngine.close();
+  phaseDone('10. confirmed corners');
   log('cost drivers: saved data per run');
   const saveCost = await measureSaveCost(designs[0]!, 3);
   phaseDone('cost drivers');
@@ -102,7 +108,7 @@ async function main(): Promise<void> {
   const text = renderResults({
     machine, date, totalS: elapsedS(), foreign, changed: sourcesChangedSince(startedAt), designs: designs.map((d) => ({ key: d.key, file: d.file, corners: expandCorners(d.design).length })),
     settleEngine, settle, refs: [...reqs.keys()].map((k) => refs.get(k)!), summaries: methodSummaries(settle, designs.map((d) => d.key)),
-    engines, fha, cache, memory, first, saveCost, capacitor, ideal, screening,
+    engines, fha, cache, memory, first, saveCost, capacitor, ideal, screening, confirmed,
   });
   const out = here('./RESULTS.md');
   await writeFile(out, text);

@@ -93,7 +93,7 @@ export const SECTION_FIELDS = {
   },
   simulation: {
     accuracy: { kind: 'enum', values: ['fast', 'normal', 'fine'], default: 'normal', description: 'Simulation accuracy profile (time step and tolerances).' } as EnumSpec,
-    settleTolerance: q('ratio', '0.1%', 'Relative agreement of successive output-voltage averages that counts as steady state.', { default: 0.001, below: 0.5, usual: [1e-6, 0.01] }),
+    settleTolerance: q('ratio', '0.1%', 'Output voltage within this fraction of its equilibrium (from the charge balance) and steady between the check window\'s halves, for steady state.', { default: 0.001, below: 0.5, usual: [1e-6, 0.01] }),
     chargeBalanceTolerance: q('ratio', '1%', 'Output capacitor charge balance that counts as steady state: |average capacitor current over the check window| / Io (the last 4 cycles of a run, or the whole check run).', { default: 0.01, below: 0.5, usual: [1e-5, 0.05] }),
     periodicityTolerance: q('ratio', '1%', 'Tank periodicity that counts as steady state: change of tank current and Cr voltage over the check window, relative to each one\'s peak.', { default: 0.01, below: 0.5, usual: [1e-5, 0.05] }),
     maxCycles: q('number', '2000', 'Switching periods simulated at most per corner before it is reported as not settled.', { default: 2000, integer: true, plausible: [1, 1e6], usual: [50, 1e5] }),

@@ -3,7 +3,7 @@ import type { Corner } from '../corners/types.js';
 import type { SimEngine } from '../engine/types.js';
 import type { DeckSeed } from '../netlist/types.js';
 import { formatSi } from '../units/index.js';
-import { simulateSteady, type SteadyOptions, type SteadyResult } from './steady.js';
+import { CHECK_CYCLES, simulateSteady, type SteadyOptions, type SteadyResult } from './steady.js';
 
 /** Regulation is met when the simulated output is within this fraction of output.voltage. */
 export const REGULATION_TOLERANCE = 0.005;
@@ -65,6 +65,11 @@ const PEAK_STEPS = 2;
  * bisects on the region boundary (PEAK_STEPS points) and reports the target unreachable with the
  * highest simulated output as the closest point. A step to a frequency where the dead time takes
  * half the period or more stops the search with `deadTime` (the circuit cannot run there).
+ *
+ * A point whose first run already shows, by the extrapolated steady output, that it misses the
+ * search's aim is left without a proof (simulateSteady's `target`): its prediction steers the next
+ * step, and the next point starts from its extrapolated state with a check run at once. A point
+ * reported, the one nearest the target or the closest to an unreachable one, is always proven.
  */
 export async function regulate(engine: SimEngine, design: Design, corner: Corner, fs0: number, seed: DeckSeed,
   slope0: number, opts: SteadyOptions): Promise<RegulateResult> {
@@ -83,14 +88,17 @@ export async function regulate(engine: SimEngine, design: Design, corner: Corner
       if (best) return { steady: best, simulations: pts.length, cycles, runs, met: false, deadTime: { fs, message: dt } };
       return { steady: null, simulations: 0, cycles, runs, met: false, deadTime: { fs, message: dt } };
     }
-    const r = await simulateSteady(engine, design, corner, fs, state, { ...opts, maxCycles: Math.max(opts.maxCycles - cycles, 40) });
+    const r = await simulateSteady(engine, design, corner, fs, state,
+      { ...opts, maxCycles: Math.max(opts.maxCycles - cycles, 40), target: { vout: target, band: AIM * REGULATION_TOLERANCE },
+        ...(step > 0 ? { firstCycles: CHECK_CYCLES } : {}) });
     cycles += r.cycles;
     runs += r.runs;
     if (!r.ok || !r.metrics) return { steady: r, simulations: step + 1, cycles, runs, met: false };
-    const v = r.metrics.vout;
+    // A point the search leaves at once carries the extrapolated prediction instead of a proof.
+    const v = r.predictedVout ?? r.metrics.vout;
     const region = r.metrics.region;
     pts.push({ fs, v, region, r });
-    if (!best || Math.abs(v - target) < Math.abs(best.metrics!.vout - target)) best = r;
+    if (r.predictedVout === undefined && (!best || Math.abs(v - target) < Math.abs(best.metrics!.vout - target))) best = r;
     if (Math.abs(v - target) <= AIM * REGULATION_TOLERANCE * target) break;
     state = { ...r.state!, vo: target };
     bracket ??= peakBracket(pts, target);
@@ -114,13 +122,28 @@ export async function regulate(engine: SimEngine, design: Design, corner: Corner
     }
     fs = Math.min(Math.max(fs - (v - target) / slope, fs * 0.7), fs * 1.4);
   }
-  const met = Math.abs(best!.metrics!.vout - target) <= REGULATION_TOLERANCE * target;
+  // A point reported must be proven: one only predicted is simulated on from its extrapolated state.
+  const prove = async (p: Point): Promise<SteadyResult> => {
+    if (p.r.predictedVout === undefined) return p.r;
+    const r = await simulateSteady(engine, design, corner, p.fs, p.r.state!, { ...opts, maxCycles: Math.max(opts.maxCycles - cycles, 40) });
+    cycles += r.cycles;
+    runs += r.runs;
+    return r;
+  };
+  if (!best) {
+    const near = pts.reduce((a, b) => (Math.abs(b.v - target) < Math.abs(a.v - target) ? b : a));
+    best = await prove(near);
+    if (!best.ok || !best.metrics) return { steady: best, simulations: pts.length, cycles, runs, met: false };
+  }
+  const met = Math.abs(best.metrics!.vout - target) <= REGULATION_TOLERANCE * target;
   if (!met && bracket) {
     const top = pts.reduce((a, b) => (b.v > a.v ? b : a));
-    return { steady: top.r, simulations: pts.length, cycles, runs, met: false,
-      unreachable: { closest: { vout: top.v, fs: top.fs, region: top.region } } };
+    const steady = await prove(top);
+    const vout = steady.metrics?.vout ?? top.v;
+    return { steady, simulations: pts.length, cycles, runs, met: false,
+      unreachable: { closest: { vout, fs: top.fs, region: steady.metrics?.region ?? top.region } } };
   }
-  return { steady: best!, simulations: pts.length, cycles, runs, met };
+  return { steady: best, simulations: pts.length, cycles, runs, met };
 }
 
 /**

@@ -36,10 +36,22 @@ export interface SteadyOptions {
   periodicityTolerance?: number;
   /** Cycle cap for this operating point. */
   maxCycles: number;
+  /**
+   * Cycles of the first run. @default APPROACH_CYCLES; a start already near this operating point's
+   * steady state (the next step of a frequency search) takes CHECK_CYCLES: a check run at once.
+   */
+  firstCycles?: number;
   /** Per-run wall-clock limit, ms; default from the cycle count. */
   timeoutMs?: number;
   signal?: AbortSignal;
   profile?: StepProfile;
+  /**
+   * A frequency search's target: when the first run's extrapolated steady output misses `vout` by
+   * more than `band` (relative), stop there without a proof and report the prediction
+   * (`predictedVout`): the search steps the frequency anyway, and proving an operating point it
+   * leaves costs a check run for nothing.
+   */
+  target?: { vout: number; band: number };
 }
 
 export interface SteadyResult {
@@ -63,6 +75,12 @@ export interface SteadyResult {
   windowStart: number;
   /** Whole cycles in the check and measurement window. */
   windowCycles: number;
+  /**
+   * Set when the run stopped early on `opts.target`: the steady output predicted by the
+   * extrapolation, V (the window average shifted by the extrapolated change of the capacitor
+   * voltage). The metrics are then those of an unproven window and `settled` is false.
+   */
+  predictedVout?: number;
   state?: DeckSeed;
   attempts: Attempt[];
 }
@@ -120,7 +138,7 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
   let imbalanceBefore = NaN;
   let last: Omit<SteadyResult, 'cycles' | 'runs' | 'attempts' | 'fs' | 'extrapolations'> | undefined;
   for (;;) {
-    const n = runs === 0 ? Math.max(APPROACH_CYCLES, check) : check;
+    const n = runs === 0 ? Math.max(opts.firstCycles ?? APPROACH_CYCLES, check) : check;
     if (runs > 0 && cycles + n > opts.maxCycles) break;
     const deck = buildDeck({ design, corner, fs, seed: state, cycles: n, saveCycles: n, profile });
     const timeoutMs = opts.timeoutMs ?? Math.max(30_000, n * 100 * (profile.stepsPerPeriod / 350));
@@ -181,6 +199,13 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
       }
     }
     if (next) extrapolations++;
+    if (next && runs === 1 && opts.target) {
+      const predictedVout = balance.voutAvg + (next.vo - last.state!.vo);
+      if (Math.abs(predictedVout - opts.target.vout) > opts.target.band * opts.target.vout) {
+        const metrics = measure(w, { tStart: windowStart, cycles: c }, { zvsThreshold: design.simulation.zvsThreshold });
+        return { fs, ...last, metrics, cycles, runs, extrapolations, attempts, predictedVout, state: next };
+      }
+    }
     fromExtrapolation = next !== null;
     imbalanceBefore = balance.chargeBalance;
     state = next ?? last.state!;
