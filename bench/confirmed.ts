@@ -28,6 +28,8 @@ export interface ConfirmedCase {
   wallS: number;
   /** Cycles per confirmed corner, for the histogram line. */
   cycles: number[];
+  /** Operating points (frequency search steps) per confirmed corner, in the same order. */
+  simulations: number[];
 }
 
 export const CONFIRMED_SAMPLES = 200;
@@ -46,6 +48,7 @@ export async function measureConfirmed(demo: Design, engine: SimEngine): Promise
     meanRuns: mean(sims.map((c) => c.sim!.runs)), meanSimulations: mean(sims.map((c) => c.sim!.simulations)),
     worstBalance: Math.max(...sims.map((c) => Math.abs(c.sim!.chargeBalanceError ?? NaN))),
     worstPeriodicity: Math.max(...sims.map((c) => c.sim!.periodicityError ?? NaN)), wallS, cycles,
+    simulations: sims.map((c) => c.sim!.simulations),
   };
   log(`confirmed corners: ${r.confirmed} of ${r.corners}, mean ${r.meanCycles.toFixed(1)} cycles (median ${r.medianCycles}, max ${r.maxCycles}), ` +
     `${r.settled} settled, worst balance ${(r.worstBalance * 100).toFixed(3)} %, ${wallS.toFixed(1)} s`);
@@ -62,8 +65,16 @@ export function renderConfirmed(c: ConfirmedCase, target: number): string {
       `${c.meanRuns.toFixed(2)} runs and ${c.meanSimulations.toFixed(2)} operating points; ${c.settled} of ${c.confirmed} proven settled, ${c.failed} failed. ` +
       `Worst evidence they were proven with: charge balance ${(c.worstBalance * 100).toFixed(3)} %, periodicity ${(c.worstPeriodicity * 100).toFixed(3)} % ` +
       `(tolerances 1 %). Wall time of the whole study ${c.wallS.toFixed(1)} s.`, '',
-    `Cycles: ${[...counts.entries()].sort((a, b) => a[0] - b[0]).map(([k, n]) => `${k} x${n}`).join(', ')}.`,
+    `Cycles: ${[...counts.entries()].sort((a, b) => a[0] - b[0]).map(([k, n]) => `${k} x${n}`).join(', ')}. ${confirmedSplit(c)}`,
   ].join('\n');
+}
+
+/** Mean cycles of the confirmed corners by how many operating points their frequency search took. */
+export function confirmedSplit(c: ConfirmedCase): string {
+  const by = new Map<number, number[]>();
+  c.simulations.forEach((s, i) => by.set(s, [...(by.get(s) ?? []), c.cycles[i]!]));
+  return [...by.entries()].sort((a, b) => a[0] - b[0])
+    .map(([s, cs]) => `${cs.length} corner(s) with ${s} operating point(s): mean ${mean(cs).toFixed(1)} cycles`).join('; ') + '.';
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

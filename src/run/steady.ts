@@ -18,6 +18,8 @@ export const CHECK_CYCLES = 4;
 export const MAX_CHECK_CYCLES = 16;
 /** Check window of plain continuation once the extrapolation is no longer trusted. */
 export const PLAIN_CHECK_CYCLES = 8;
+/** Longest check window of plain continuation, grown while only the output's distance to its equilibrium is unproven. */
+export const MAX_PLAIN_CHECK_CYCLES = 64;
 /**
  * Extrapolated restarts per operating point. Where two have not reached a provable steady state,
  * what is left is rarely a transient the extrapolation can skip: more often the numerical ringing of
@@ -108,7 +110,10 @@ function peak(y: Float64Array): number {
  * - else where the run ended.
  * Check runs last CHECK_CYCLES cycles, doubling after each failed check up to MAX_CHECK_CYCLES, or
  * PLAIN_CHECK_CYCLES once the extrapolation is no longer trusted (numerical ringing of a
- * hard-commutated corner: a longer window averages it, a shorter one tries again sooner).
+ * hard-commutated corner: a longer window averages it, a shorter one tries again sooner). In plain
+ * continuation a window whose charge balances but whose output is not yet proven near its
+ * equilibrium doubles, up to MAX_PLAIN_CHECK_CYCLES: behind a stiff load line (far above resonance,
+ * Rth >> RL) the balance must be finer than the noise of a short window.
  *
  * The proof of steady state is the check window (the last CHECK_CYCLES cycles of the first run, the
  * whole of a check run), judged by isSettled: the output capacitor's charge balances, the tank state
@@ -179,11 +184,19 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
       trustExtrapolation = false;
       check = PLAIN_CHECK_CYCLES;
     } else if (runs > 1 && trustExtrapolation) check = Math.min(check * 2, MAX_CHECK_CYCLES);
+    else if (!trustExtrapolation && settle.chargeShift > tol.vout && Math.abs(balance.chargeBalance) <= tol.chargeBalance) {
+      // Balanced within its tolerance, yet the output's distance to equilibrium is not proven: behind
+      // a stiff load line (Rth >> RL, far above resonance) the charge balance must be finer than the
+      // numerical noise of a short window. A longer window averages that noise.
+      check = Math.min(check * 2, MAX_PLAIN_CHECK_CYCLES);
+    }
     const next = trustExtrapolation && extrapolations < MAX_EXTRAPOLATIONS ? extrapolateSeed(boundaries, scales) : null;
     // Without a trusted extrapolation, an output capacitor much slower than a check run is the
     // transient left (the extrapolation cannot resolve a mode that barely moves within the run):
     // one shooting step on the capacitor voltage instead (run/shooting.ts), the tank moved along
-    // the slow mode. A faster capacitor settles within the next runs by itself.
+    // the slow mode. A faster capacitor settles within the next runs by itself. Only for a charge
+    // out of balance: within the balance tolerance the imbalance is at the numerical noise of the
+    // step profile, and a step on noise moves the output away from its equilibrium.
     if (!next && Math.abs(balance.chargeBalance) > tol.chargeBalance) {
       slow ??= slowMode(design, corner, fs);
       if (design.output.capacitance * slow.r > MAX_CHECK_CYCLES * period) {
