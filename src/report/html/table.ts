@@ -84,7 +84,7 @@ function notes(c: CornerResult): string {
     ...c.divergences.map((d) => `<li><b>${esc(METRIC_NAMES[d.metric] ?? d.metric)}</b>${d.error !== null ? ` ${esc(pct(d.error))}` : ''}${d.cause ? ` [${esc(d.cause)}]` : ''}: ${esc(d.reason || 'beyond tolerance')}${d.unexpectedSign ? ' <i>(the simulation contradicts the ideal model: suspect the design values, netlist or measurement)</i>' : ''}</li>`),
     ...(c.ideal === null && c.idealReason ? [`<li><b>no ideal column</b>: ${esc(c.idealReason)}</li>`] : []),
     ...(c.failure ? [`<li><b>${esc(c.failure.kind)}</b>: ${esc(c.failure.message)}${c.failure.detail ? `<pre>${esc(c.failure.detail)}</pre>` : ''}</li>`] : []),
-    ...(c.sim && !c.sim.settled ? [`<li><b>not settled</b>: output still moving by ${esc(pct(c.sim.settleError, 2))} between windows</li>`] : []),
+    ...(c.sim && !c.sim.settled ? [`<li><b>not settled</b>: output not proven within ${esc(pct(c.sim.settleError, 2))} of its steady value (charge balance and window halves)</li>`] : []),
     ...(c.fha.warnings ?? []).map((w) => `<li><b>FHA note</b>: ${esc(w)}</li>`),
   ];
   if (!items.length) return '<td class="notes"></td>';
