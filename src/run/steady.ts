@@ -174,12 +174,9 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
     last = { ok: true, settled, settleError: settle.error, chargeBalanceError: balance.chargeBalance, periodicityError: balance.periodicity,
       waveforms: w, windowStart, windowCycles: c, state: finalState(w, res.vectors) };
     if (settled) break;
-    // The next run starts from the limit of this run's cycle-boundary states, or where it ended.
-    const boundaries = Array.from({ length: n + 1 }, (_, k) => stateAt(w, res.vectors, deck.tstart + k * period));
-    const scales = { vo: Math.abs(balance.voutAvg), ir: peak(w.tankCurrent), im: peak(w.magnetizingCurrent), vcr: peak(w.crVoltage) };
     // A run from an extrapolated start that did not cut the charge imbalance several times over
     // shows the extrapolation fitting noise, not a transient: from there on, plain continuation
-    // with the longest check window.
+    // with PLAIN_CHECK_CYCLES windows.
     if (fromExtrapolation && !(Math.abs(balance.chargeBalance) <= Math.abs(imbalanceBefore) / EXTRAPOLATION_GAIN)) {
       trustExtrapolation = false;
       check = PLAIN_CHECK_CYCLES;
@@ -190,7 +187,13 @@ export async function simulateSteady(engine: SimEngine, design: Design, corner: 
       // numerical noise of a short window. A longer window averages that noise.
       check = Math.min(check * 2, MAX_PLAIN_CHECK_CYCLES);
     }
-    const next = trustExtrapolation && extrapolations < MAX_EXTRAPOLATIONS ? extrapolateSeed(boundaries, scales) : null;
+    // The next run starts from the limit of this run's cycle-boundary states, or where it ended.
+    let next: DeckSeed | null = null;
+    if (trustExtrapolation && extrapolations < MAX_EXTRAPOLATIONS) {
+      const boundaries = Array.from({ length: n + 1 }, (_, k) => stateAt(w, res.vectors, deck.tstart + k * period));
+      const scales = { vo: Math.abs(balance.voutAvg), ir: peak(w.tankCurrent), im: peak(w.magnetizingCurrent), vcr: peak(w.crVoltage) };
+      next = extrapolateSeed(boundaries, scales);
+    }
     // Without a trusted extrapolation, an output capacitor much slower than a check run is the
     // transient left (the extrapolation cannot resolve a mode that barely moves within the run):
     // one shooting step on the capacitor voltage instead (run/shooting.ts), the tank moved along
